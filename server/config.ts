@@ -1,0 +1,57 @@
+import { z } from 'zod'
+
+const booleanFlag = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((value) => value === 'true' || value === '1')
+
+const ConfigSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_URL: z.url({ protocol: /^(mysql|mariadb)$/ }).optional(),
+  SESSION_SECRET: z.string().min(32).optional(),
+  DEMO_PASSWORD: z.string().min(8).default('demo-password'),
+  DEMO_DATA: booleanFlag.optional(),
+  LOG_REQUESTS: booleanFlag.default(true),
+  UPLOADS_DIR: z.string().min(1).default('uploads'),
+})
+
+export type Config = {
+  nodeEnv: 'development' | 'production' | 'test'
+  host: string
+  port: number
+  databaseUrl: string | undefined
+  sessionSecret: string
+  demoPassword: string
+  /** demo data is seeded only outside production, and never when switched off */
+  demoData: boolean
+  logRequests: boolean
+  uploadsDir: string
+}
+
+export class ConfigError extends Error {}
+
+/** Reads the environment once; a bad value stops start with one line naming the variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = ConfigSchema.safeParse(env)
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]
+    throw new ConfigError(`Configuration error: ${issue?.path.join('.')}: ${issue?.message}`)
+  }
+  const value = parsed.data
+  const production = value.NODE_ENV === 'production'
+  if (production && !value.SESSION_SECRET) {
+    throw new ConfigError('Configuration error: SESSION_SECRET (32+ characters) is required')
+  }
+  return {
+    nodeEnv: value.NODE_ENV,
+    host: value.HOST,
+    port: value.PORT,
+    databaseUrl: value.DATABASE_URL,
+    sessionSecret: value.SESSION_SECRET ?? 'development-only-secret-not-for-production-use',
+    demoPassword: value.DEMO_PASSWORD,
+    demoData: !production && (value.DEMO_DATA ?? true),
+    logRequests: value.LOG_REQUESTS,
+    uploadsDir: value.UPLOADS_DIR,
+  }
+}

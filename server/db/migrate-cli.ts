@@ -1,0 +1,25 @@
+// `npm run migrate -- latest|rollback` against DATABASE_URL or the private MariaDB.
+import { resolveDatabase } from './database-url'
+import { createDb } from './knex'
+import { migrateLatest, rollbackAll } from './migrations'
+
+async function main(command = 'latest'): Promise<void> {
+  if (command !== 'latest' && command !== 'rollback')
+    throw new Error('usage: migrate latest|rollback')
+  const database = await resolveDatabase(process.env.DATABASE_URL, 'fractolog')
+  const db = createDb(database.url)
+  try {
+    const names = command === 'latest' ? await migrateLatest(db) : await rollbackAll(db)
+    console.log(
+      `${command}: ${names.length} migration(s)${names.length ? `: ${names.join(', ')}` : ''}`,
+    )
+  } finally {
+    await db.destroy()
+    await database.local?.stop()
+  }
+}
+
+main(process.argv[2]).catch((error: unknown) => {
+  console.error(error instanceof Error ? error.message : String(error))
+  process.exit(1)
+})

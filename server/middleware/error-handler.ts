@@ -1,0 +1,44 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { AppError, NotFound } from '../errors'
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new NotFound(`No API route for ${req.method} ${req.baseUrl}${req.path}.`))
+}
+
+interface HttpError {
+  status?: number
+  statusCode?: number
+  type?: string
+  expose?: boolean
+}
+
+/** body-parser and friends throw errors with an HTTP status; keep their meaning, not their text. */
+function fromHttpError(error: HttpError): AppError | undefined {
+  const status = error.status ?? error.statusCode
+  if (!status || status < 400 || status >= 500) return undefined
+  if (error.type === 'entity.too.large') {
+    return new AppError(413, 'payload_too_large', 'The request body is too large.')
+  }
+  if (error.type === 'entity.parse.failed') {
+    return new AppError(400, 'malformed_json', 'The request body is not valid JSON.')
+  }
+  return new AppError(status, 'bad_request', 'The request could not be processed.')
+}
+
+export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {
+  return (error: unknown, _req, res, _next) => {
+    const known =
+      error instanceof AppError
+        ? error
+        : typeof error === 'object' && error !== null
+          ? fromHttpError(error as HttpError)
+          : undefined
+    if (known) {
+      const body = { code: known.code, message: known.message, details: known.details }
+      res.status(known.status).json({ error: body })
+      return
+    }
+    log(error)
+    res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong.' } })
+  }
+}

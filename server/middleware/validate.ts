@@ -1,0 +1,34 @@
+import type { RequestHandler } from 'express'
+import type { z } from 'zod'
+import { ValidationError } from '../errors'
+
+type Source = 'body' | 'query' | 'params'
+
+/** Field-by-field messages the client can show next to the inputs. */
+export function describeIssues(error: z.ZodError): { path: string; message: string }[] {
+  return error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }))
+}
+
+export function parseOrThrow<T extends z.ZodType>(
+  schema: T,
+  value: unknown,
+  what: string,
+): z.infer<T> {
+  const result = schema.safeParse(value)
+  if (!result.success) {
+    const details = describeIssues(result.error)
+    const first = details[0]
+    const where = first?.path ? `${first.path}: ` : ''
+    throw new ValidationError(`Invalid ${what}. ${where}${first?.message ?? ''}`.trim(), details)
+  }
+  return result.data
+}
+
+/** Validates one part of the request and stores the parsed value in res.locals[source]. */
+export function validate<T extends z.ZodType>(source: Source, schema: T): RequestHandler {
+  const what = source === 'body' ? 'request body' : source === 'query' ? 'query' : 'URL'
+  return (req, res, next) => {
+    res.locals[source] = parseOrThrow(schema, req[source], what)
+    next()
+  }
+}

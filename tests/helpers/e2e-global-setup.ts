@@ -1,0 +1,37 @@
+import type { Server } from 'node:http'
+import type { AddressInfo } from 'node:net'
+import { resolve } from 'node:path'
+import type { TestProject } from 'vitest/node'
+import { createApp } from '../../server/app'
+import { createDb } from '../../server/db/knex'
+import { dropAllTables, migrateLatest } from '../../server/db/migrations'
+import { seedDemoIfEmpty } from '../../seeds/demo'
+import { testConfig } from './test-config'
+import { testDatabaseUrl } from './test-db'
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string
+    demoPassword: string
+  }
+}
+
+/** Serves the built client and the API on a free loopback port, on a freshly seeded database. */
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  const db = createDb(testDatabaseUrl('E2E_DATABASE_URL'))
+  await dropAllTables(db)
+  await migrateLatest(db)
+  const config = testConfig()
+  await seedDemoIfEmpty(db, { password: config.demoPassword })
+  const app = createApp({ db, config, clientDir: resolve(import.meta.dirname, '../../dist') })
+  const server = await new Promise<Server>((done) => {
+    const listening = app.listen(0, '127.0.0.1', () => done(listening))
+  })
+  const { port } = server.address() as AddressInfo
+  project.provide('baseUrl', `http://127.0.0.1:${port}`)
+  project.provide('demoPassword', config.demoPassword)
+  return async () => {
+    await new Promise((done) => server.close(done))
+    await db.destroy()
+  }
+}

@@ -6,8 +6,19 @@ import helmet from 'helmet'
 import morgan from 'morgan'
 import type { Config } from './config'
 import type { Db } from './db/knex'
+import { csrfProtection } from './auth/csrf'
+import { createPassport } from './auth/passport'
+import { createSessionMiddleware, enforceAbsoluteLifetime } from './auth/session'
 import { apiNotFound, errorHandler } from './middleware/error-handler'
+import { requirePasswordSet, requireSignedIn } from './middleware/require-auth'
+import { authRoutes } from './routes/auth'
+import { caseRoutes } from './routes/cases'
 import { healthRoutes } from './routes/health'
+import { organisationRoutes } from './routes/organisations'
+import { peopleRoutes, staffRoutes } from './routes/people'
+import { createCaseService } from './services/cases'
+import { createOrganisationService } from './services/organisations'
+import { createPeopleService } from './services/people'
 
 export interface AppDeps {
   db: Db
@@ -50,9 +61,31 @@ function serveClient(app: Express, clientDir: string): void {
   })
 }
 
+function apiRouter(deps: AppDeps, log: (error: unknown) => void) {
+  const { db, config } = deps
+  const people = createPeopleService(db, { passwordCost: config.passwordCost })
+  const passport = createPassport(people)
+  const api = express.Router()
+  api.use(express.json({ limit: '100kb' }))
+  api.use(createSessionMiddleware(db, config).middleware)
+  api.use(enforceAbsoluteLifetime(config))
+  api.use(passport.session())
+  api.use(csrfProtection)
+  api.use('/health', healthRoutes(db))
+  api.use('/auth', authRoutes({ passport, people, config }))
+  const signedIn = [requireSignedIn, requirePasswordSet]
+  api.use('/people', ...signedIn, peopleRoutes(people))
+  api.use('/staff', ...signedIn, staffRoutes(people))
+  api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
+  api.use('/cases', ...signedIn, caseRoutes(createCaseService(db)))
+  api.use(apiNotFound)
+  api.use(errorHandler(log))
+  return api
+}
+
 /** Builds the whole HTTP application without listening, so tests can drive it with supertest. */
 export function createApp(deps: AppDeps): Express {
-  const { db, config } = deps
+  const { config } = deps
   const log = deps.log ?? ((error: unknown) => console.error(error))
   const app = express()
   app.disable('x-powered-by')
@@ -60,12 +93,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(securityHeaders(config))
   if (config.logRequests) app.use(morgan('short'))
 
-  const api = express.Router()
-  api.use(express.json({ limit: '100kb' }))
-  api.use('/health', healthRoutes(db))
-  api.use(apiNotFound)
-  api.use(errorHandler(log))
-  app.use('/api', api)
+  app.use('/api', apiRouter(deps, log))
 
   serveClient(app, deps.clientDir ?? defaultClientDir)
   app.use(errorHandler(log))

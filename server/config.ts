@@ -14,6 +14,22 @@ const ConfigSchema = z.object({
   DEMO_DATA: booleanFlag.optional(),
   LOG_REQUESTS: booleanFlag.default(true),
   UPLOADS_DIR: z.string().min(1).default('uploads'),
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
+  SESSION_MAX_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 7)
+    .default(12),
+  PASSWORD_COST: z.coerce.number().int().min(10).max(20).default(17),
+  LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
+  LOGIN_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(30),
+  LOGIN_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
 })
 
 export type Config = {
@@ -27,6 +43,11 @@ export type Config = {
   demoData: boolean
   logRequests: boolean
   uploadsDir: string
+  sessionIdleMinutes: number
+  sessionMaxHours: number
+  /** scrypt cost exponent: N = 2^passwordCost (17 is the OWASP recommendation) */
+  passwordCost: number
+  loginLimits: { perAccount: number; perAddress: number; windowMinutes: number }
 }
 
 export class ConfigError extends Error {}
@@ -53,5 +74,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     demoData: !production && (value.DEMO_DATA ?? true),
     logRequests: value.LOG_REQUESTS,
     uploadsDir: value.UPLOADS_DIR,
+    sessionIdleMinutes: value.SESSION_IDLE_MINUTES,
+    sessionMaxHours: value.SESSION_MAX_HOURS,
+    passwordCost: value.PASSWORD_COST,
+    loginLimits: {
+      perAccount: value.LOGIN_LIMIT_PER_ACCOUNT,
+      perAddress: value.LOGIN_LIMIT_PER_ADDRESS,
+      windowMinutes: value.LOGIN_LIMIT_WINDOW_MINUTES,
+    },
   }
 }

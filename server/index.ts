@@ -4,7 +4,7 @@ import { ConfigError, loadConfig } from './config'
 import { resolveDatabase } from './db/database-url'
 import { createDb } from './db/knex'
 import { migrateLatest } from './db/migrations'
-import { seedDemoIfEmpty } from '../seeds/demo'
+import { demoAccountsNote, seedDemoIfEmpty } from '../seeds/demo'
 
 function listen(app: ReturnType<typeof createApp>, host: string, port: number): Promise<Server> {
   return new Promise((resolveServer, reject) => {
@@ -35,8 +35,9 @@ async function main(): Promise<void> {
   const applied = await migrateLatest(db)
   if (applied.length > 0) console.log(`Applied ${applied.length} migration(s).`)
   if (config.demoData) {
-    const seeded = await seedDemoIfEmpty(db, { password: config.demoPassword })
-    if (seeded) console.log(seeded)
+    const options = { password: config.demoPassword, passwordCost: config.passwordCost }
+    if (await seedDemoIfEmpty(db, options)) console.log('Demo scenario seeded.')
+    console.log(demoAccountsNote(config.demoPassword))
   }
   running.server = await listen(createApp({ db, config }), config.host, config.port)
   console.log(`Fractolog is running at http://${config.host}:${config.port}/`)

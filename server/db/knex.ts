@@ -13,7 +13,15 @@ function camelizeRow(row: unknown): unknown {
 }
 
 /** Knex on mysql2, with camelCase in the code and snake_case in MariaDB, converted here only. */
-export function createDb(url: string, pool: Knex.PoolConfig = { min: 0, max: 10 }): Knex {
+export function createDb(url: string, poolOptions: Knex.PoolConfig = { min: 0, max: 10 }): Knex {
+  // Every connection works in UTC, so TIMESTAMP columns read back as the instants they stored.
+  const pool: Knex.PoolConfig = {
+    ...poolOptions,
+    afterCreate: (
+      connection: { query: (sql: string, done: (error?: Error) => void) => void },
+      done: (error?: Error) => void,
+    ) => connection.query("SET time_zone = '+00:00'", (error) => done(error)),
+  }
   return knex({
     client: 'mysql2',
     connection: { uri: url, charset: 'utf8mb4', timezone: 'Z', dateStrings: false } as never,

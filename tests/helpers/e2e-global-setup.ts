@@ -22,7 +22,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await dropAllTables(db)
   await migrateLatest(db)
   const config = testConfig()
-  await seedDemoIfEmpty(db, { password: config.demoPassword })
+  await seedDemoIfEmpty(db, { password: config.demoPassword, passwordCost: config.passwordCost })
   const app = createApp({ db, config, clientDir: resolve(import.meta.dirname, '../../dist') })
   const server = await new Promise<Server>((done) => {
     const listening = app.listen(0, '127.0.0.1', () => done(listening))

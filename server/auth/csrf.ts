@@ -1,0 +1,29 @@
+import { csrfSync } from 'csrf-sync'
+import type { RequestHandler } from 'express'
+import { AppError } from '../errors'
+
+// Synchroniser-token pattern: the token lives in the session and must come back in the
+// X-CSRF-Token header on every state-changing request, sign-in included.
+const { generateToken, isRequestValid } = csrfSync({
+  getTokenFromRequest: (req) => req.get('x-csrf-token'),
+})
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
+
+export const csrfProtection: RequestHandler = (req, _res, next) => {
+  if (SAFE_METHODS.has(req.method) || isRequestValid(req)) {
+    next()
+    return
+  }
+  next(
+    new AppError(
+      403,
+      'csrf_invalid',
+      'The security token is missing or out of date. Reload and try again.',
+    ),
+  )
+}
+
+export const issueCsrfToken: RequestHandler = (req, res) => {
+  res.json({ data: { token: generateToken(req) } })
+}

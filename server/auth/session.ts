@@ -1,0 +1,59 @@
+import { ConnectSessionKnexStore } from 'connect-session-knex'
+import type { RequestHandler } from 'express'
+import session from 'express-session'
+import type { Knex } from 'knex'
+import type { Config } from '../config'
+
+declare module 'express-session' {
+  interface SessionData {
+    /** when the person signed in (ms since epoch), for the absolute lifetime */
+    signedInAt?: number
+  }
+}
+
+export interface SessionHandle {
+  middleware: RequestHandler
+  /** stops the store's periodic clean-up so the process can exit */
+  close: () => void
+}
+
+/**
+ * Sessions live in MariaDB (several API processes can share them). The cookie rolls with every
+ * request, which gives the idle timeout; `enforceAbsoluteLifetime` ends a session that is older
+ * than the absolute limit however active it is.
+ */
+export function createSessionMiddleware(db: Knex, config: Config): SessionHandle {
+  const store = new ConnectSessionKnexStore({
+    knex: db,
+    tableName: 'sessions',
+    createTable: false,
+    cleanupInterval: config.nodeEnv === 'test' ? 0 : 10 * 60_000,
+  })
+  const middleware = session({
+    name: 'fractolog.sid',
+    secret: config.sessionSecret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: config.nodeEnv === 'production',
+      maxAge: config.sessionIdleMinutes * 60_000,
+    },
+  })
+  return { middleware, close: () => clearTimeout(store.nextDbCleanup) }
+}
+
+export function enforceAbsoluteLifetime(config: Config): RequestHandler {
+  const limitMs = config.sessionMaxHours * 3_600_000
+  return (req, _res, next) => {
+    const signedInAt = req.session?.signedInAt
+    if (signedInAt === undefined || Date.now() - signedInAt <= limitMs) {
+      next()
+      return
+    }
+    req.session.destroy((error) => next(error))
+  }
+}

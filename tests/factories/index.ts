@@ -1,0 +1,62 @@
+import type { Knex } from 'knex'
+import type { CaseCreate } from '../../shared/schemas/cases'
+import type { Role } from '../../shared/schemas/roles'
+import { hashPassword } from '../../server/auth/passwords'
+import { createCaseService } from '../../server/services/cases'
+
+let sequence = 0
+const unique = (prefix: string) => `${prefix}-${process.pid}-${Date.now()}-${++sequence}`
+
+export const TEST_PASSWORD = 'correct horse battery staple'
+
+export async function makeOrganisation(db: Knex, name = unique('Org')): Promise<number> {
+  const [id] = (await db('organisations').insert({ name })) as number[]
+  return id as number
+}
+
+export interface TestPerson {
+  id: number
+  email: string
+  password: string
+}
+
+export async function makePerson(
+  db: Knex,
+  roles: Role[],
+  options: { organisationId?: number; mustChangePassword?: boolean; active?: boolean } = {},
+): Promise<TestPerson> {
+  const email = `${unique(roles.join('-'))}@example.test`.toLowerCase()
+  const [id] = (await db('users').insert({
+    email,
+    name: `Test ${roles.join(' ')}`,
+    passwordHash: await hashPassword(TEST_PASSWORD, 10),
+    mustChangePassword: options.mustChangePassword ?? false,
+    active: options.active ?? true,
+    organisationId: options.organisationId ?? null,
+  })) as number[]
+  await db('user_roles').insert(roles.map((role) => ({ userId: id, role })))
+  return { id: id as number, email, password: TEST_PASSWORD }
+}
+
+export async function makeCase(
+  db: Knex,
+  organisationId: number,
+  createdBy: number,
+  overrides: Partial<CaseCreate> = {},
+) {
+  return createCaseService(db).create(
+    {
+      title: unique('Case'),
+      organisationId,
+      component: 'Test component',
+      partNumber: null,
+      material: 'Test steel',
+      priority: 'normal',
+      leadInvestigatorId: null,
+      failureDate: null,
+      dueDate: null,
+      ...overrides,
+    },
+    createdBy,
+  )
+}

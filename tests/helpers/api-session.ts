@@ -1,0 +1,46 @@
+import type { Express } from 'express'
+import request from 'supertest'
+
+export type Agent = ReturnType<typeof request.agent>
+
+/** A cookie-keeping client with the current CSRF token, as the browser client behaves. */
+export class ApiSession {
+  readonly agent: Agent
+  token = ''
+
+  constructor(app: Express) {
+    this.agent = request.agent(app)
+  }
+
+  async refreshToken(): Promise<string> {
+    const response = await this.agent.get('/api/auth/csrf').expect(200)
+    this.token = response.body.data.token as string
+    return this.token
+  }
+
+  async signIn(email: string, password: string) {
+    await this.refreshToken()
+    const response = await this.post('/api/auth/login', { email, password })
+    if (response.status === 200) await this.refreshToken()
+    return response
+  }
+
+  get(path: string) {
+    return this.agent.get(path)
+  }
+
+  post(path: string, body?: object) {
+    return this.agent.post(path).set('X-CSRF-Token', this.token).send(body)
+  }
+
+  put(path: string, body?: object) {
+    return this.agent.put(path).set('X-CSRF-Token', this.token).send(body)
+  }
+}
+
+export async function signedIn(app: Express, email: string, password: string) {
+  const session = new ApiSession(app)
+  const response = await session.signIn(email, password)
+  if (response.status !== 200) throw new Error(`sign-in failed: ${response.status}`)
+  return session
+}

@@ -3,6 +3,7 @@ import '@fontsource/merriweather-sans/700.css'
 import './theme/base.css'
 import { createPinia } from 'pinia'
 import PrimeVue from 'primevue/config'
+import ConfirmationService from 'primevue/confirmationservice'
 import ToastService from 'primevue/toastservice'
 import { createApp } from 'vue'
 import App from './App.vue'
@@ -17,4 +18,5 @@ app.use(PrimeVue, {
   ripple: false,
 })
 app.use(ToastService)
+app.use(ConfirmationService)
 app.mount('#app')

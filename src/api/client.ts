@@ -27,6 +27,23 @@ export interface RequestOptions {
   headers?: Record<string, string>
 }
 
+/** Whether an error means the session is gone or may do nothing before a password change. */
+export function isSessionProblem(error: unknown): boolean {
+  return (
+    error instanceof ApiError &&
+    ((error.status === 401 && error.code === 'unauthorized') ||
+      (error.status === 403 && error.code === 'password_change_required'))
+  )
+}
+
+type SessionProblemListener = (error: ApiError, path: string) => void
+let sessionProblemListener: SessionProblemListener | undefined
+
+/** Lets the app react in one place (go to sign-in, go to set-password) to a session problem. */
+export function onSessionProblem(listener: SessionProblemListener): void {
+  sessionProblemListener = listener
+}
+
 function withQuery(path: string, query: RequestOptions['query']): string {
   if (!query) return path
   const params = new URLSearchParams()
@@ -49,17 +66,12 @@ async function toApiError(response: Response): Promise<ApiError> {
   )
 }
 
-/** The one place that talks HTTP to the API; every resource module goes through it. */
-export async function request<T>(
-  method: Method,
-  path: string,
-  options: RequestOptions = {},
-): Promise<T> {
+async function send(method: Method, path: string, options: RequestOptions, csrfToken?: string) {
   const headers: Record<string, string> = { Accept: 'application/json', ...options.headers }
   if (options.body !== undefined) headers['Content-Type'] = 'application/json'
-  let response: Response
+  if (csrfToken) headers['X-CSRF-Token'] = csrfToken
   try {
-    response = await fetch(withQuery(`/api${path}`, options.query), {
+    return await fetch(withQuery(`/api${path}`, options.query), {
       method,
       headers,
       credentials: 'same-origin',
@@ -68,7 +80,55 @@ export async function request<T>(
   } catch {
     throw new ApiError(0, 'network_error', 'The server cannot be reached. Check the connection.')
   }
+}
+
+async function readBody<T>(response: Response): Promise<T> {
   if (!response.ok) throw await toApiError(response)
   if (response.status === 204) return undefined as T
   return (await response.json()) as T
+}
+
+// The CSRF token belongs to the session: it is fetched at start and again whenever the session
+// changes (sign-in, sign-out), and kept here so every changing request can send it.
+let csrfToken: string | undefined
+let pendingCsrfToken: Promise<string> | undefined
+
+/** Fetches a fresh CSRF token for the current session and keeps it for later requests. */
+export function refreshCsrfToken(): Promise<string> {
+  pendingCsrfToken ??= send('GET', '/auth/csrf', {})
+    .then((response) => readBody<{ data: { token: string } }>(response))
+    .then(({ data }) => {
+      csrfToken = data.token
+      return data.token
+    })
+    .finally(() => {
+      pendingCsrfToken = undefined
+    })
+  return pendingCsrfToken
+}
+
+async function sendWithCsrf(method: Method, path: string, options: RequestOptions) {
+  const token = csrfToken ?? (await refreshCsrfToken())
+  const response = await send(method, path, options, token)
+  if (response.status !== 403) return response
+  const error = await toApiError(response.clone())
+  if (error.code !== 'csrf_invalid') return response
+  // The session may have changed in another tab since the token was fetched: try once more.
+  return send(method, path, options, await refreshCsrfToken())
+}
+
+/** The one place that talks HTTP to the API; every resource module goes through it. */
+export async function request<T>(
+  method: Method,
+  path: string,
+  options: RequestOptions = {},
+): Promise<T> {
+  const response =
+    method === 'GET' ? await send(method, path, options) : await sendWithCsrf(method, path, options)
+  try {
+    return await readBody<T>(response)
+  } catch (error) {
+    if (error instanceof ApiError && isSessionProblem(error)) sessionProblemListener?.(error, path)
+    throw error
+  }
 }

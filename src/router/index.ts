@@ -1,13 +1,79 @@
 import { createRouter, createWebHistory } from 'vue-router'
+import type { Role } from '../../shared/schemas/roles'
+import { installSessionGuard } from './session-guard'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Open to anyone, signed in or not. */
+    public?: boolean
+    /** Only people holding one of these roles may open the page; others see "Not found". */
+    roles?: readonly Role[]
+    /** Shown in the browser tab before the product's name. */
+    title?: string
+  }
+}
+
+const CASE_OPENERS: readonly Role[] = ['admin', 'investigator']
+const ADMINS: readonly Role[] = ['admin']
 
 export const router = createRouter({
   history: createWebHistory(),
   routes: [
-    { path: '/', name: 'home', component: () => import('@/views/HomeView.vue') },
+    { path: '/', redirect: { name: 'cases' } },
+    {
+      path: '/sign-in',
+      name: 'sign-in',
+      component: () => import('@/views/SignInView.vue'),
+      meta: { public: true, title: 'Sign in' },
+    },
+    {
+      path: '/set-password',
+      name: 'set-password',
+      component: () => import('@/views/SetPasswordView.vue'),
+      meta: { title: 'Set password' },
+    },
+    {
+      path: '/cases',
+      name: 'cases',
+      component: () => import('@/views/CaseListView.vue'),
+      meta: { title: 'Cases' },
+    },
+    {
+      path: '/cases/new',
+      name: 'case-new',
+      component: () => import('@/views/NewCaseView.vue'),
+      meta: { roles: CASE_OPENERS, title: 'New case' },
+    },
+    {
+      path: '/cases/:id(\\d+)',
+      name: 'case',
+      component: () => import('@/views/CaseView.vue'),
+      props: (route) => ({ id: Number(route.params.id) }),
+      meta: { title: 'Case' },
+    },
+    {
+      path: '/admin/people',
+      name: 'people',
+      component: () => import('@/views/PeopleView.vue'),
+      meta: { roles: ADMINS, title: 'People' },
+    },
+    {
+      path: '/admin/organisations',
+      name: 'organisations',
+      component: () => import('@/views/OrganisationsView.vue'),
+      meta: { roles: ADMINS, title: 'Organisations' },
+    },
     {
       path: '/:pathMatch(.*)*',
       name: 'not-found',
       component: () => import('@/views/NotFoundView.vue'),
+      meta: { public: true, title: 'Not found' },
     },
   ],
+})
+
+installSessionGuard(router)
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Fractolog` : 'Fractolog'
 })

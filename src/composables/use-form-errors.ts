@@ -1,0 +1,58 @@
+import { ref } from 'vue'
+import type { z } from 'zod'
+import { ApiError, isSessionProblem } from '@/api/client'
+
+type FieldMessages = Record<string, string>
+
+function topField(path: string): string {
+  return path.split('.')[0] ?? path
+}
+
+function firstMessagePerField(entries: [string, string][]): FieldMessages {
+  const messages: FieldMessages = {}
+  for (const [path, message] of entries) messages[topField(path)] ??= message
+  return messages
+}
+
+/**
+ * Messages beside form fields, from the same zod schema the server validates with and from the
+ * server's own field messages; anything else the server refuses becomes one message for the form.
+ */
+export function useFormErrors() {
+  const fieldErrors = ref<FieldMessages>({})
+  const formError = ref('')
+
+  function clear(): void {
+    fieldErrors.value = {}
+    formError.value = ''
+  }
+
+  /**
+   * Parses the form's value; on failure shows each issue beside its field and answers undefined.
+   * `plainMessages` words the issues whose schema carries no message of its own.
+   */
+  function validate<Schema extends z.ZodType>(
+    schema: Schema,
+    value: unknown,
+    plainMessages: FieldMessages = {},
+  ): z.output<Schema> | undefined {
+    clear()
+    const result = schema.safeParse(value, {
+      error: (issue) => plainMessages[String(issue.path?.[0] ?? '')],
+    })
+    if (result.success) return result.data
+    fieldErrors.value = firstMessagePerField(
+      result.error.issues.map((issue) => [issue.path.map(String).join('.'), issue.message]),
+    )
+    return undefined
+  }
+
+  /** Shows a refusal from the server on the form; session problems go on to the app's handler. */
+  function showServerError(error: unknown): void {
+    if (!(error instanceof ApiError) || isSessionProblem(error)) throw error
+    fieldErrors.value = firstMessagePerField(Object.entries(error.fieldMessages()))
+    formError.value = error.message
+  }
+
+  return { fieldErrors, formError, clear, validate, showServerError }
+}

@@ -1,0 +1,79 @@
+import { computed, onMounted, reactive, ref } from 'vue'
+import { useRouter } from 'vue-router'
+import { createCase } from '@/api/cases'
+import { listStaff, type StaffMember } from '@/api/staff'
+import { useFormErrors } from '@/composables/use-form-errors'
+import { useOrganisationsStore } from '@/stores/organisations'
+import { useSessionStore } from '@/stores/session'
+import { CaseCreate, type Priority } from '../../shared/schemas/cases'
+
+/** Words for the issues the shared schema reports without a message of its own. */
+const PLAIN_MESSAGES = {
+  organisationId: 'Choose the client organisation.',
+  leadInvestigatorId: 'Choose an investigator from the list.',
+  partNumber: 'Part number is at most 100 characters.',
+}
+
+function emptyToNull(text: string): string | null {
+  return text.trim() === '' ? null : text
+}
+
+/** The new-case form: choices to fill it from, checks before sending, and the created case. */
+export function useNewCaseForm() {
+  const router = useRouter()
+  const session = useSessionStore()
+  const organisations = useOrganisationsStore()
+  const { fieldErrors, formError, validate, showServerError } = useFormErrors()
+
+  const form = reactive({
+    title: '',
+    organisationId: null as number | null,
+    component: '',
+    partNumber: '',
+    material: '',
+    priority: 'normal' as Priority,
+    leadInvestigatorId: null as number | null,
+    failureDate: '',
+    dueDate: '',
+  })
+  const staff = ref<StaffMember[]>([])
+  const saving = ref(false)
+
+  const investigators = computed(() =>
+    staff.value.filter((member) => member.roles.includes('investigator')),
+  )
+
+  onMounted(async () => {
+    const [members] = await Promise.all([listStaff(), organisations.ensureLoaded()])
+    staff.value = members
+    const me = session.user
+    if (me && investigators.value.some((member) => member.id === me.id)) {
+      form.leadInvestigatorId ??= me.id
+    }
+  })
+
+  async function submit(): Promise<void> {
+    const newCase = validate(
+      CaseCreate,
+      {
+        ...form,
+        partNumber: emptyToNull(form.partNumber),
+        failureDate: emptyToNull(form.failureDate),
+        dueDate: emptyToNull(form.dueDate),
+      },
+      PLAIN_MESSAGES,
+    )
+    if (!newCase) return
+    saving.value = true
+    try {
+      const created = await createCase(newCase)
+      await router.push({ name: 'case', params: { id: created.id } })
+    } catch (error) {
+      showServerError(error)
+    } finally {
+      saving.value = false
+    }
+  }
+
+  return { form, fieldErrors, formError, saving, investigators, organisations, submit }
+}

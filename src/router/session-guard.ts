@@ -1,0 +1,57 @@
+import type { RouteLocationNormalized, RouteLocationRaw, Router } from 'vue-router'
+import { onSessionProblem } from '@/api/client'
+import { useSessionStore } from '@/stores/session'
+
+/** A return address from the query, accepted only when it stays inside the app. */
+export function safeRedirect(value: unknown): string | undefined {
+  return typeof value === 'string' && value.startsWith('/') && !value.startsWith('//')
+    ? value
+    : undefined
+}
+
+/** Shows the not-found page at the address asked for, so a forbidden page looks like no page. */
+function notFound(to: RouteLocationNormalized): RouteLocationRaw {
+  return {
+    name: 'not-found',
+    params: { pathMatch: to.path.substring(1).split('/') },
+    query: to.query,
+    hash: to.hash,
+  }
+}
+
+function withReturn(name: string, to: RouteLocationNormalized): RouteLocationRaw {
+  return to.fullPath === '/' ? { name } : { name, query: { redirect: to.fullPath } }
+}
+
+/**
+ * Route guards by `meta.public` and `meta.roles`, and the app's answer when the API says the
+ * session ended (back to sign-in) or a new password is due (to the set-password page).
+ */
+export function installSessionGuard(router: Router): void {
+  router.beforeEach(async (to) => {
+    const session = useSessionStore()
+    await session.ensureLoaded()
+    const user = session.user
+    if (to.meta.public) {
+      return to.name === 'sign-in' && user ? (safeRedirect(to.query.redirect) ?? '/cases') : true
+    }
+    if (!user) return withReturn('sign-in', to)
+    if (user.mustChangePassword && to.name !== 'set-password') {
+      return withReturn('set-password', to)
+    }
+    if (to.meta.roles && !session.hasRole(...to.meta.roles)) return notFound(to)
+    return true
+  })
+
+  onSessionProblem((error, path) => {
+    // Asking who is signed in and signing in answer 401 as part of their ordinary work.
+    if (path === '/auth/me' || path === '/auth/login') return
+    const current = router.currentRoute.value
+    if (error.code === 'password_change_required') {
+      if (current.name !== 'set-password') void router.push(withReturn('set-password', current))
+      return
+    }
+    useSessionStore().forget()
+    if (!current.meta.public) void router.push(withReturn('sign-in', current))
+  })
+}

@@ -1,0 +1,86 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import * as authApi from '@/api/auth'
+import { ApiError, refreshCsrfToken } from '@/api/client'
+import type { ChangePasswordRequest, LoginRequest, SessionUser } from '../../shared/schemas/auth'
+import type { Role } from '../../shared/schemas/roles'
+import { resetAllStores } from './reset-all'
+
+/** The signed-in person, shared by the top bar, the route guards and every role check. */
+export const useSessionStore = defineStore('session', () => {
+  const user = ref<SessionUser | null>(null)
+  const loaded = ref(false)
+  let loading: Promise<void> | undefined
+
+  const roles = computed<readonly Role[]>(() => user.value?.roles ?? [])
+  const isStaff = computed(() => roles.value.some((role) => role !== 'client'))
+  const canOpenCases = computed(() => hasRole('admin', 'investigator'))
+
+  function hasRole(...wanted: Role[]): boolean {
+    return wanted.some((role) => roles.value.includes(role))
+  }
+
+  async function fetchUser(): Promise<void> {
+    try {
+      const [sessionUser] = await Promise.all([authApi.fetchSessionUser(), refreshCsrfToken()])
+      user.value = sessionUser
+    } catch (error) {
+      // Being signed out is the ordinary start for a visitor, not an error to report.
+      if (!(error instanceof ApiError && error.status === 401)) throw error
+      user.value = null
+    }
+    loaded.value = true
+  }
+
+  /** Asks the server once per page load who is signed in. */
+  function ensureLoaded(): Promise<void> {
+    if (loaded.value) return Promise.resolve()
+    loading ??= fetchUser().finally(() => {
+      loading = undefined
+    })
+    return loading
+  }
+
+  async function signIn(credentials: LoginRequest): Promise<SessionUser> {
+    resetAllStores()
+    user.value = await authApi.signIn(credentials)
+    loaded.value = true
+    return user.value
+  }
+
+  async function signOut(): Promise<void> {
+    await authApi.signOut()
+    forget()
+  }
+
+  /** Clears every store and records that nobody is signed in, without asking the server. */
+  function forget(): void {
+    resetAllStores()
+    loaded.value = true
+  }
+
+  async function changePassword(change: ChangePasswordRequest): Promise<void> {
+    user.value = await authApi.changePassword(change)
+  }
+
+  /** Forgets the person locally, e.g. when the server says the session has ended. */
+  function $reset(): void {
+    user.value = null
+    loaded.value = false
+  }
+
+  return {
+    user,
+    loaded,
+    roles,
+    isStaff,
+    canOpenCases,
+    hasRole,
+    ensureLoaded,
+    signIn,
+    signOut,
+    forget,
+    changePassword,
+    $reset,
+  }
+})

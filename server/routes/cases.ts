@@ -3,7 +3,7 @@ import { CaseCreate, CaseListQuery, CaseStatusChange } from '../../shared/schema
 import { IdParams } from '../../shared/schemas/common'
 import { nextStates } from '../../shared/workflow/case-states'
 import { can, organisationScope } from '../auth/policy'
-import { authorize, currentUser } from '../middleware/require-auth'
+import { authorize, currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { CaseService } from '../services/cases'
 import type { CaseDetail } from '../../shared/schemas/cases'
@@ -22,11 +22,16 @@ export function caseRoutes(cases: CaseService): Router {
     const user = authorize(req, 'cases.list')
     res.json(await cases.list(res.locals.query as CaseListQuery, organisationScope(user)))
   })
-  router.post('/', validate('body', CaseCreate), async (req, res) => {
-    const user = authorize(req, 'case.create')
-    const created = await cases.create(res.locals.body as CaseCreate, user.id)
-    res.status(201).json({ data: withNextStates(user, created) })
-  })
+  router.post(
+    '/',
+    requirePermission('case.create'),
+    validate('body', CaseCreate),
+    async (req, res) => {
+      const user = currentUser(req)
+      const created = await cases.create(res.locals.body as CaseCreate, user.id)
+      res.status(201).json({ data: withNextStates(user, created) })
+    },
+  )
   router.get('/:id', validate('params', IdParams), async (req, res) => {
     const user = authorize(req, 'cases.list')
     const { id } = res.locals.params as IdParams
@@ -36,6 +41,7 @@ export function caseRoutes(cases: CaseService): Router {
   })
   router.post(
     '/:id/status',
+    requirePermission('case.changeStatus'),
     validate('params', IdParams),
     validate('body', CaseStatusChange),
     async (req, res) => {

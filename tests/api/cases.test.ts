@@ -227,7 +227,7 @@ describe('POST /api/cases/:id/status', () => {
       .expect(403)
     await sessions.client2
       .post(`/api/cases/${created.id}/status`, { status: 'examination' })
-      .expect(404)
+      .expect(403)
     const unchanged = await db('cases').where({ id: created.id }).first('status')
     expect(unchanged.status).toBe('intake')
   })

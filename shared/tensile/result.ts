@@ -1,0 +1,32 @@
+/**
+ * Properties of one test in SI units at full precision; `null` where a property does not apply
+ * or was not reached. The names are the command line's JSON keys (a public contract).
+ */
+export interface TensileResult {
+  modulusGPa: number
+  modulusFit: { fromMPa: number; toMPa: number; rSquared: number; points: number }
+  /** Toe compensation: how far the strain origin moved, in percent strain. */
+  strainOriginShiftPct: number
+  proportionalLimitMPa: number | null
+  offsetPct: number
+  yieldStrengthMPa: number | null
+  /** Rp at every requested offset, keyed by the offset in percent as written ("0.2", "1"). */
+  yieldStrengthsMPa: Record<string, number | null>
+  tensileStrengthMPa: number
+  maximumForceN: number | null
+  uniformElongationPct: number
+  totalElongationAtMaxForcePct: number
+  trueStressAtMaxForceMPa: number
+  trueStrainAtMaxForce: number
+  fractureStrengthMPa: number
+  elongationAfterFracturePct: number
+  elongationAfterFractureFromLuPct: number | null
+  reductionOfAreaPct: number | null
+  resilienceMJm3: number | null
+  toughnessMJm3: number
+  crossSectionMm2: number | null
+  extensometerGaugeLengthMm: number | null
+  originalGaugeLengthMm: number | null
+  points: number
+  warnings: string[]
+}

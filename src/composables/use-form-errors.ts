@@ -1,6 +1,6 @@
 import { ref } from 'vue'
 import type { z } from 'zod'
-import { ApiError, isSessionProblem } from '@/api/client'
+import { ApiError } from '@/api/client'
 
 type FieldMessages = Record<string, string>
 
@@ -47,9 +47,12 @@ export function useFormErrors() {
     return undefined
   }
 
-  /** Shows a refusal from the server on the form; session problems go on to the app's handler. */
+  /**
+   * Shows a refusal from the server on the form. A session problem is shown too: the app's own
+   * handler moves on to sign-in or set-password anyway, and a failed sign-in is one of them.
+   */
   function showServerError(error: unknown): void {
-    if (!(error instanceof ApiError) || isSessionProblem(error)) throw error
+    if (!(error instanceof ApiError)) throw error
     fieldErrors.value = firstMessagePerField(Object.entries(error.fieldMessages()))
     formError.value = error.message
   }

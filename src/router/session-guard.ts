@@ -19,8 +19,10 @@ function notFound(to: RouteLocationNormalized): RouteLocationRaw {
   }
 }
 
+/** The page to go to, remembering where the person was going unless it was the start page. */
 function withReturn(name: string, to: RouteLocationNormalized): RouteLocationRaw {
-  return to.fullPath === '/' ? { name } : { name, query: { redirect: to.fullPath } }
+  const start = to.fullPath === '/' || to.fullPath === '/cases'
+  return start ? { name } : { name, query: { redirect: to.fullPath } }
 }
 
 /**

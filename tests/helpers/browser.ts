@@ -33,7 +33,10 @@ export async function openBrowser(): Promise<BrowserSession> {
   const page = context.pages()[0] ?? (await context.newPage())
   const errors: string[] = []
   page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text())
+    if (message.type() !== 'error') return
+    // The browser's note on a failed load names the resource only in its location.
+    const { url } = message.location()
+    errors.push(url ? `${message.text()} at ${url}` : message.text())
   })
   page.on('pageerror', (error) => errors.push(error.message))
   return {
@@ -52,4 +55,38 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const path = join(SCREENSHOT_DIR, `${name}.png`)
   await page.screenshot({ path, fullPage: true })
   return path
+}
+
+export interface ExpectedFailure {
+  status: number
+  /** API path after /api, e.g. /auth/me */
+  path: string
+}
+
+function escapeRegExp(text: string): string {
+  return text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
+}
+
+/**
+ * Console errors left after removing the browser's own notes on API answers the journey expects
+ * to fail (the 401 of "who is signed in?" while signed out, a 404 for a case one may not see).
+ */
+export function unexpectedErrors(errors: string[], expected: ExpectedFailure[]): string[] {
+  const patterns = expected.map(
+    ({ status, path }) =>
+      new RegExp(
+        `^Failed to load resource: the server responded with a status of ${status} \\(.*\\) ` +
+          `at https?://[^/]+/api${escapeRegExp(path)}$`,
+      ),
+  )
+  return errors.filter((error) => !patterns.some((pattern) => pattern.test(error)))
+}
+
+/** Signs in through the sign-in page and waits until the app has left it. */
+export async function signIn(page: Page, baseUrl: string, email: string, password: string) {
+  await page.goto(`${baseUrl}/sign-in`)
+  await page.locator('#email').fill(email)
+  await page.locator('#password').fill(password)
+  await page.getByTestId('sign-in-submit').click()
+  await page.waitForURL((url) => url.pathname !== '/sign-in')
 }

@@ -1,0 +1,77 @@
+import { request } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import {
+  openBrowser,
+  screenshot,
+  signIn,
+  unexpectedErrors,
+  type BrowserSession,
+} from '../helpers/browser'
+
+let browser: BrowserSession
+
+beforeAll(async () => {
+  browser = await openBrowser()
+})
+afterAll(() => browser.close())
+
+/** Asks the API, signed in as the investigator, for the id of a case of the given organisation. */
+async function caseIdOf(organisationName: string): Promise<number> {
+  const api = await request.newContext({ baseURL: inject('baseUrl') })
+  try {
+    const csrf = await (await api.get('/api/auth/csrf')).json()
+    const login = await api.post('/api/auth/login', {
+      headers: { 'X-CSRF-Token': csrf.data.token },
+      data: { email: 'investigator@demo.test', password: inject('demoPassword') },
+    })
+    expect(login.status()).toBe(200)
+    const organisations = (await (await api.get('/api/organisations')).json()).data as {
+      id: number
+      name: string
+    }[]
+    const organisation = organisations.find(({ name }) => name === organisationName)
+    expect(organisation).toBeDefined()
+    const cases = await api.get(`/api/cases?organisationId=${organisation?.id}`)
+    const [first] = (await cases.json()).data as { id: number }[]
+    expect(first).toBeDefined()
+    return first?.id ?? 0
+  } finally {
+    await api.dispose()
+  }
+}
+
+describe('a client', () => {
+  it("sees only the own organisation's cases and not-found for another's case", async () => {
+    const page = browser.page
+    const base = inject('baseUrl')
+    const otherCaseId = await caseIdOf('Quillon Process Fittings')
+
+    await signIn(page, base, 'client@demo.test', inject('demoPassword'))
+    await page.waitForURL(`${base}/cases`)
+    const table = page.getByTestId('case-table')
+    await expect.poll(() => table.textContent()).toContain('Fractured hook block pin')
+    const listed = (await table.textContent()) ?? ''
+    expect(listed).toContain('Sheared boom foot bolt')
+    expect(listed).not.toContain('Cracked compression fitting')
+    expect(listed).not.toContain('Transfer pump shaft fracture')
+    expect(await page.getByTestId('new-case').count()).toBe(0)
+    expect(await page.getByTestId('organisation-filter').count()).toBe(0)
+    expect(await page.getByTestId('nav-people').count()).toBe(0)
+    await screenshot(page, 'client-case-list')
+
+    await page.goto(`${base}/cases/${otherCaseId}`)
+    await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)
+    expect(await page.getByTestId('case-page').count()).toBe(0)
+    await screenshot(page, 'client-other-case')
+
+    await page.goto(`${base}/admin/people`)
+    await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)
+
+    expect(
+      unexpectedErrors(browser.errors, [
+        { status: 401, path: '/auth/me' },
+        { status: 404, path: `/cases/${otherCaseId}` },
+      ]),
+    ).toEqual([])
+  })
+})

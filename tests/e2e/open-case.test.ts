@@ -1,0 +1,72 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import {
+  openBrowser,
+  screenshot,
+  signIn,
+  unexpectedErrors,
+  type BrowserSession,
+} from '../helpers/browser'
+
+let browser: BrowserSession
+
+beforeAll(async () => {
+  browser = await openBrowser()
+})
+afterAll(() => browser.close())
+
+describe('an investigator opening a case', () => {
+  it('fills the new-case form, lands on the case, moves it on and finds it in the list', async () => {
+    const page = browser.page
+    const base = inject('baseUrl')
+    const title = `Snapped lifting lug ${Date.now()}`
+    await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
+    await page.waitForURL(`${base}/cases`)
+    await expect
+      .poll(() => page.getByTestId('case-table').locator('tbody tr').count())
+      .toBeGreaterThan(1)
+
+    await page.getByTestId('new-case').click()
+    await page.waitForURL(`${base}/cases/new`)
+    await page.getByTestId('create-case').click()
+    await expect
+      .poll(() => page.getByTestId('title-error').textContent())
+      .toBe('Title is required.')
+    await expect
+      .poll(() => page.getByTestId('organisation-error').textContent())
+      .toBe('Choose the client organisation.')
+
+    await page.locator('#title').fill(title)
+    await page.getByTestId('organisation-select').click()
+    await page.getByRole('option', { name: 'Tallowmere Cranes Ltd' }).click()
+    await page.locator('#component').fill('Lifting lug, spreader beam')
+    await page.locator('#part-number').fill('LL-220-B')
+    await page.locator('#material').fill('S355J2, as-welded')
+    await page.getByTestId('priority').getByText('High').click()
+    await page.locator('#failure-date').fill('2026-02-14')
+    await page.locator('#due-date').fill('2026-04-30')
+    await screenshot(page, 'new-case-form')
+    await page.getByTestId('create-case').click()
+
+    await page.waitForURL(/\/cases\/\d+$/)
+    await expect.poll(() => page.getByTestId('case-title').textContent()).toBe(title)
+    expect(await page.getByTestId('case-number').textContent()).toMatch(/^FL-\d{4}-\d{4}$/)
+    expect(await page.getByTestId('case-lead').textContent()).toBe('Tomas Reyke')
+    expect(await page.getByTestId('case-status').textContent()).toBe('Intake')
+
+    await page.getByTestId('move-to-examination').click()
+    await page.getByTestId('confirm-move').click()
+    await expect.poll(() => page.getByTestId('case-status').textContent()).toBe('Examination')
+    await screenshot(page, 'case-page')
+
+    await page.getByTestId('nav-cases').click()
+    await page.getByTestId('case-search').fill(title)
+    const rows = page.getByTestId('case-table').locator('tbody tr')
+    await expect.poll(() => rows.count()).toBe(1)
+    await expect.poll(() => rows.first().textContent()).toContain(title)
+    await screenshot(page, 'case-list-search')
+    await rows.first().getByText(title).click()
+    await page.waitForURL(/\/cases\/\d+$/)
+
+    expect(unexpectedErrors(browser.errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
+  })
+})

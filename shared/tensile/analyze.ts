@@ -1,13 +1,15 @@
 import { curveAfterFit, type CompensatedCurve } from './compensated-curve'
 import { buildCurve } from './curve'
+import { discontinuousYield } from './discontinuous-yield'
 import { modulusOfResilience, toughness } from './energy'
 import { fractureIndex } from './fracture'
 import { importRecord } from './import-record'
-import { maximumForce } from './maximum-force'
+import { maximumForce, type MaximumForcePoint } from './maximum-force'
 import type { TensileResult } from './result'
+import { defaultHardeningRange, strainHardening } from './strain-hardening'
 import { trueStressStrain } from './true-curve'
 import type { AnalysisOptions, EngineeringCurve, ImportOptions, ResolvedGeometry } from './types'
-import { offsetYieldStrength, proportionalLimit } from './yield-strength'
+import { offsetYieldStrength, proportionalLimit, totalExtensionStrength } from './yield-strength'
 
 const DEFAULT_OFFSET_PCT = 0.2
 
@@ -23,36 +25,103 @@ function reductionOfArea(geometry: ResolvedGeometry): number | null {
   return s0 === null || su === null ? null : ((s0 - su) / s0) * 100
 }
 
-function offsetYields(
+/** Rp at every offset (ASTM E8/E8M, ISO 6892-1), searched up to fracture. */
+function yieldStrengths(
   c: CompensatedCurve,
   offsetsPct: readonly number[],
-  to: number,
+  fracture: number,
   warnings: string[],
 ) {
-  return offsetsPct.map((offset) => {
-    const value = offsetYieldStrength(c.strain, c.stress, c.modulusMPa, offset, c.fit.fromIndex, to)
+  const values = offsetsPct.map((offset) => {
+    const value = offsetYieldStrength(
+      c.strain,
+      c.stress,
+      c.modulusMPa,
+      offset,
+      c.fit.fromIndex,
+      fracture,
+    )
     if (value === null) warnings.push(`Rp${offset} is not reached before fracture`)
     return value
   })
+  return {
+    offsetPct: offsetsPct[0] ?? DEFAULT_OFFSET_PCT,
+    yieldStrengthMPa: values[0] ?? null,
+    yieldStrengthsMPa: Object.fromEntries(
+      offsetsPct.map((offset, k) => [String(offset), values[k] ?? null]),
+    ),
+    rt05MPa: totalExtensionStrength(c.strain, c.stress, 0.5, c.fit.fromIndex, fracture),
+  }
 }
 
-/** Every issue-4 property of one engineering curve (see result.ts for the meaning of each key). */
+function yieldPoint(c: CompensatedCurve, top: MaximumForcePoint) {
+  const found = discontinuousYield(c.strain, c.stress, c.modulusMPa, c.fit.fromIndex, top.index)
+  return {
+    discontinuousYielding: found !== null,
+    upperYieldMPa: found?.upperYieldMPa ?? null,
+    lowerYieldMPa: found?.lowerYieldMPa ?? null,
+    yieldPointElongationPct: found?.yieldPointElongationPct ?? null,
+    yieldEndPct: found === null ? null : found.endStrain * 100,
+  }
+}
+
+function hardening(
+  c: CompensatedCurve,
+  top: MaximumForcePoint,
+  agPct: number,
+  yieldEndPct: number | null,
+  options: AnalysisOptions,
+  warnings: string[],
+) {
+  const range =
+    options.hardeningRangePct ?? defaultHardeningRange(agPct, top.strain * 100, yieldEndPct)
+  const fit = strainHardening(c.strain, c.stress, top.index, range)
+  if (fit === null)
+    warnings.push('Too few points for the strain-hardening fit (ASTM E646 asks for five)')
+  return {
+    strainHardeningExponent: fit?.strainHardeningExponent ?? null,
+    strengthCoefficientMPa: fit?.strengthCoefficientMPa ?? null,
+    hardeningFit: fit?.fit ?? null,
+  }
+}
+
+function atMaximumForce(c: CompensatedCurve, top: MaximumForcePoint, geometry: ResolvedGeometry) {
+  const trueCurve = trueStressStrain(c.strain, c.stress, top.index)
+  return {
+    tensileStrengthMPa: top.stressMPa,
+    maximumForceN: geometry.areaMm2 === null ? null : top.stressMPa * geometry.areaMm2,
+    uniformElongationPct: (top.strain - top.stressMPa / c.modulusMPa) * 100,
+    totalElongationAtMaxForcePct: top.strain * 100,
+    trueStressAtMaxForceMPa: trueCurve.trueStressMPa[top.index]!,
+    trueStrainAtMaxForce: trueCurve.trueStrain[top.index]!,
+  }
+}
+
+function atFracture(c: CompensatedCurve, fracture: number, geometry: ResolvedGeometry) {
+  const stress = c.stress[fracture]!
+  return {
+    fractureStrengthMPa: stress,
+    elongationAfterFracturePct: (c.strain[fracture]! - stress / c.modulusMPa) * 100,
+    elongationAfterFractureFromLuPct: elongationFromMarks(geometry),
+    reductionOfAreaPct: reductionOfArea(geometry),
+    toughnessMJm3: toughness(c.strain, c.stress, fracture),
+  }
+}
+
+/** Every property of one engineering curve (see result.ts for the meaning of each key). */
 export function analyseCurve(
   curve: EngineeringCurve,
   options: AnalysisOptions = {},
 ): TensileResult {
   const warnings: string[] = []
   const c = curveAfterFit(curve, options.fitRange, warnings)
-  const E = c.modulusMPa
   const top = maximumForce(c.strain, c.stress)
   const fracture = fractureIndex(c.stress, top.index)
-  const offsetsPct = options.offsetsPct ?? [DEFAULT_OFFSET_PCT]
-  const yields = offsetYields(c, offsetsPct, fracture, warnings)
-  const yieldStrengthMPa = yields[0] ?? null
-  const atMaximum = trueStressStrain(c.strain, c.stress, top.index)
-  const fractureStress = c.stress[fracture]!
+  const yields = yieldStrengths(c, options.offsetsPct ?? [DEFAULT_OFFSET_PCT], fracture, warnings)
+  const { yieldEndPct, ...yieldPointProperties } = yieldPoint(c, top)
+  const maximum = atMaximumForce(c, top, curve.geometry)
   return {
-    modulusGPa: E / 1000,
+    modulusGPa: c.modulusMPa / 1000,
     modulusFit: {
       fromMPa: c.fit.fromMPa,
       toMPa: c.fit.toMPa,
@@ -60,25 +129,21 @@ export function analyseCurve(
       points: c.fit.points,
     },
     strainOriginShiftPct: c.originStrain * 100,
-    proportionalLimitMPa: proportionalLimit(c.strain, c.stress, E, c.fit.fromIndex, top.index),
-    offsetPct: offsetsPct[0] ?? DEFAULT_OFFSET_PCT,
-    yieldStrengthMPa,
-    yieldStrengthsMPa: Object.fromEntries(
-      offsetsPct.map((offset, k) => [String(offset), yields[k] ?? null]),
+    proportionalLimitMPa: proportionalLimit(
+      c.strain,
+      c.stress,
+      c.modulusMPa,
+      c.fit.fromIndex,
+      top.index,
     ),
-    tensileStrengthMPa: top.stressMPa,
-    maximumForceN: curve.geometry.areaMm2 === null ? null : top.stressMPa * curve.geometry.areaMm2,
-    uniformElongationPct: (top.strain - top.stressMPa / E) * 100,
-    totalElongationAtMaxForcePct: top.strain * 100,
-    trueStressAtMaxForceMPa: atMaximum.trueStressMPa[top.index]!,
-    trueStrainAtMaxForce: atMaximum.trueStrain[top.index]!,
-    fractureStrengthMPa: fractureStress,
-    elongationAfterFracturePct: (c.strain[fracture]! - fractureStress / E) * 100,
-    elongationAfterFractureFromLuPct: elongationFromMarks(curve.geometry),
-    reductionOfAreaPct: reductionOfArea(curve.geometry),
-    resilienceMJm3: modulusOfResilience(yieldStrengthMPa, E),
-    toughnessMJm3: toughness(c.strain, c.stress, fracture),
+    ...yields,
+    ...yieldPointProperties,
+    ...maximum,
+    ...atFracture(c, fracture, curve.geometry),
+    ...hardening(c, top, maximum.uniformElongationPct, yieldEndPct, options, warnings),
+    resilienceMJm3: modulusOfResilience(yields.yieldStrengthMPa, c.modulusMPa),
     crossSectionMm2: curve.geometry.areaMm2,
+    diameterMm: curve.geometry.diameterMm,
     extensometerGaugeLengthMm: curve.geometry.extensometerGaugeLengthMm,
     originalGaugeLengthMm: curve.geometry.originalGaugeLengthMm,
     points: c.stress.length,

@@ -12,6 +12,12 @@ export interface TensileResult {
   yieldStrengthMPa: number | null
   /** Rp at every requested offset, keyed by the offset in percent as written ("0.2", "1"). */
   yieldStrengthsMPa: Record<string, number | null>
+  /** Proof strength at 0.5 % total extension, Rt0.5 (ISO 6892-1). */
+  rt05MPa: number | null
+  discontinuousYielding: boolean
+  upperYieldMPa: number | null
+  lowerYieldMPa: number | null
+  yieldPointElongationPct: number | null
   tensileStrengthMPa: number
   maximumForceN: number | null
   uniformElongationPct: number
@@ -22,9 +28,13 @@ export interface TensileResult {
   elongationAfterFracturePct: number
   elongationAfterFractureFromLuPct: number | null
   reductionOfAreaPct: number | null
+  strainHardeningExponent: number | null
+  strengthCoefficientMPa: number | null
+  hardeningFit: { fromPct: number; toPct: number; points: number; rSquared: number } | null
   resilienceMJm3: number | null
   toughnessMJm3: number
   crossSectionMm2: number | null
+  diameterMm: number | null
   extensometerGaugeLengthMm: number | null
   originalGaugeLengthMm: number | null
   points: number

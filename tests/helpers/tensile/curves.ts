@@ -111,3 +111,80 @@ export function withStressNoise(
   const sd = fraction * curve.expected.rmMPa
   return { ...curve, stressMPa: curve.stressMPa.map((s) => s + sd * gaussian()) }
 }
+
+export interface YieldPointSpec {
+  modulusMPa: number
+  upperYieldMPa: number
+  /** The initial transient: the first minimum after ReH, lower than ReL (ISO 6892-1 ignores it). */
+  transientMPa: number
+  /** Highs and lows of the serrated plateau; the lowest low is ReL. */
+  plateauHighs: readonly number[]
+  plateauLows: readonly number[]
+  /** Engineering strain where the plateau ends and uniform hardening starts. */
+  plateauEndStrain: number
+  rmMPa: number
+  strainAtRm: number
+  fractureStrain: number
+}
+
+function segment(points: [number, number][], to: [number, number], samples: number): void {
+  const [e0, s0] = points.at(-1) ?? [0, 0]
+  for (let k = 1; k <= samples; k++) {
+    const t = k / samples
+    points.push([e0 + t * (to[0] - e0), s0 + t * (to[1] - s0)])
+  }
+}
+
+/**
+ * A curve with discontinuous yielding built from known pieces: a straight elastic line to
+ * ReH, a sudden drop to the transient minimum, a serrated plateau whose lowest trough is ReL,
+ * then hardening that starts abruptly at the plateau end (so the tangent construction of
+ * ASTM E8/E8M ends the yield-point elongation exactly there), necking and fracture.
+ */
+export function yieldPointCurve(spec: YieldPointSpec): { strain: number[]; stressMPa: number[] } {
+  const points: [number, number][] = [[0, 0]]
+  const yieldStrain = spec.upperYieldMPa / spec.modulusMPa
+  segment(points, [yieldStrain, spec.upperYieldMPa], 300)
+  segment(points, [yieldStrain + 0.0002, spec.transientMPa], 4)
+  const teeth = spec.plateauHighs.length
+  const start = yieldStrain + 0.0002
+  const pitch = (spec.plateauEndStrain - start) / teeth
+  spec.plateauHighs.forEach((high, k) => {
+    segment(points, [start + pitch * (k + 0.8), high], 16)
+    segment(points, [start + pitch * (k + 1), spec.plateauLows[k]!], 4)
+  })
+  const [endStrain, endStress] = points.at(-1)!
+  const span = spec.strainAtRm - endStrain
+  for (let k = 1; k <= 600; k++) {
+    const t = k / 600
+    points.push([endStrain + span * t, endStress + (spec.rmMPa - endStress) * (1 - (1 - t) ** 2)])
+  }
+  segment(points, [spec.fractureStrain, spec.rmMPa * 0.8], 200)
+  segment(points, [spec.fractureStrain + 0.001, spec.rmMPa * 0.02], 2)
+  return { strain: points.map((p) => p[0]), stressMPa: points.map((p) => p[1]) }
+}
+
+/**
+ * Hollomon curve σ = K εⁿ in true stress and true strain (Hollomon, 1945), elastic below the
+ * intersection with σ = E ε, converted to engineering values; past maximum force the
+ * engineering stress falls by itself (Considère: at true strain n), then the specimen breaks.
+ */
+export function hollomonCurve(modulusMPa: number, kMPa: number, n: number, samples: number) {
+  const yieldTrueStrain = (kMPa / modulusMPa) ** (1 / (1 - n))
+  const lastTrueStrain = n * 1.6
+  const strain: number[] = []
+  const stressMPa: number[] = []
+  for (let k = 0; k <= samples; k++) {
+    const e =
+      k < samples / 5
+        ? (yieldTrueStrain * k) / (samples / 5)
+        : yieldTrueStrain +
+          ((lastTrueStrain - yieldTrueStrain) * (k - samples / 5)) / (samples * 0.8)
+    const trueStress = e <= yieldTrueStrain ? modulusMPa * e : kMPa * e ** n
+    strain.push(Math.expm1(e))
+    stressMPa.push(trueStress / Math.exp(e))
+  }
+  strain.push(strain.at(-1)! + 0.001)
+  stressMPa.push(stressMPa.at(-1)! * 0.02)
+  return { strain, stressMPa }
+}

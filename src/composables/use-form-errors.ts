@@ -1,4 +1,4 @@
-import { ref } from 'vue'
+import { ref, watch } from 'vue'
 import type { z } from 'zod'
 import { ApiError } from '@/api/client'
 
@@ -57,5 +57,19 @@ export function useFormErrors() {
     formError.value = error.message
   }
 
-  return { fieldErrors, formError, clear, validate, showServerError }
+  /** Takes a field's message away as soon as the person edits that field. */
+  function clearWhenEdited(form: Record<string, unknown>): void {
+    watch(
+      () => ({ ...form }),
+      (now, before) => {
+        const edited = Object.keys(now).filter((key) => now[key] !== before[key])
+        if (edited.length === 0 || Object.keys(fieldErrors.value).length === 0) return
+        fieldErrors.value = Object.fromEntries(
+          Object.entries(fieldErrors.value).filter(([field]) => !edited.includes(field)),
+        )
+      },
+    )
+  }
+
+  return { fieldErrors, formError, clear, validate, showServerError, clearWhenEdited }
 }

@@ -23,7 +23,7 @@ export function useNewCaseForm() {
   const router = useRouter()
   const session = useSessionStore()
   const organisations = useOrganisationsStore()
-  const { fieldErrors, formError, validate, showServerError } = useFormErrors()
+  const { fieldErrors, formError, validate, showServerError, clearWhenEdited } = useFormErrors()
 
   const form = reactive({
     title: '',
@@ -37,6 +37,7 @@ export function useNewCaseForm() {
     dueDate: '',
   })
   const staff = ref<StaffMember[]>([])
+  clearWhenEdited(form)
   const saving = ref(false)
 
   const investigators = computed(() =>

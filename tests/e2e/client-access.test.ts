@@ -5,6 +5,7 @@ import {
   screenshot,
   signIn,
   unexpectedErrors,
+  waitForTable,
   type BrowserSession,
 } from '../helpers/browser'
 
@@ -57,6 +58,7 @@ describe('a client', () => {
     expect(await page.getByTestId('new-case').count()).toBe(0)
     expect(await page.getByTestId('organisation-filter').count()).toBe(0)
     expect(await page.getByTestId('nav-people').count()).toBe(0)
+    await waitForTable(page)
     await screenshot(page, 'client-case-list')
 
     await page.goto(`${base}/cases/${otherCaseId}`)

@@ -4,6 +4,7 @@ import {
   screenshot,
   signIn,
   unexpectedErrors,
+  waitForTable,
   type BrowserSession,
 } from '../helpers/browser'
 
@@ -34,9 +35,12 @@ describe('a new staff member', () => {
     await expect.poll(() => secret.isVisible()).toBe(true)
     const oneTimePassword = ((await secret.textContent()) ?? '').trim()
     expect(oneTimePassword.length).toBeGreaterThanOrEqual(12)
+    await page.getByTestId('person-dialog').waitFor({ state: 'detached' })
     await screenshot(page, 'one-time-password')
     await page.getByTestId('close-one-time-password').click()
+    await page.getByTestId('one-time-password-dialog').waitFor({ state: 'detached' })
     await expect.poll(() => page.getByTestId('people-table').textContent()).toContain(email)
+    await waitForTable(page)
     await screenshot(page, 'people')
 
     await page.getByTestId('sign-out').click()
@@ -64,6 +68,7 @@ describe('a new staff member', () => {
       .poll(() => page.getByTestId('signed-in-name').textContent())
       .toBe('Aino Vesterlund')
     await expect.poll(() => page.getByTestId('case-table').isVisible()).toBe(true)
+    await waitForTable(page)
     await screenshot(page, 'first-case-list')
 
     expect(unexpectedErrors(browser.errors, [{ status: 401, path: '/auth/me' }])).toEqual([])

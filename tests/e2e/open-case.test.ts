@@ -4,6 +4,7 @@ import {
   screenshot,
   signIn,
   unexpectedErrors,
+  waitForTable,
   type BrowserSession,
 } from '../helpers/browser'
 
@@ -44,6 +45,7 @@ describe('an investigator opening a case', () => {
     await page.getByTestId('priority').getByText('High').click()
     await page.locator('#failure-date').fill('2026-02-14')
     await page.locator('#due-date').fill('2026-04-30')
+    expect(await page.getByTestId('title-error').count()).toBe(0)
     await screenshot(page, 'new-case-form')
     await page.getByTestId('create-case').click()
 
@@ -56,6 +58,8 @@ describe('an investigator opening a case', () => {
     await page.getByTestId('move-to-examination').click()
     await page.getByTestId('confirm-move').click()
     await expect.poll(() => page.getByTestId('case-status').textContent()).toBe('Examination')
+    await expect.poll(() => page.getByRole('alertdialog').count()).toBe(0)
+    expect(await page.getByTestId('move-to-drafting').isVisible()).toBe(true)
     await screenshot(page, 'case-page')
 
     await page.getByTestId('nav-cases').click()
@@ -63,6 +67,7 @@ describe('an investigator opening a case', () => {
     const rows = page.getByTestId('case-table').locator('tbody tr')
     await expect.poll(() => rows.count()).toBe(1)
     await expect.poll(() => rows.first().textContent()).toContain(title)
+    await waitForTable(page)
     await screenshot(page, 'case-list-search')
     await rows.first().getByText(title).click()
     await page.waitForURL(/\/cases\/\d+$/)

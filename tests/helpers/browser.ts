@@ -90,3 +90,8 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByTestId('sign-in-submit').click()
   await page.waitForURL((url) => url.pathname !== '/sign-in')
 }
+
+/** Waits until no table on the page shows its loading overlay, so a screenshot shows the rows. */
+export async function waitForTable(page: Page): Promise<void> {
+  await page.locator('.p-datatable-mask').waitFor({ state: 'detached' })
+}

@@ -43,9 +43,14 @@ function upperYieldIndex(
   from: number,
   end: number,
 ): number {
+  const lowest = LOWEST_FRACTION_OF_MAXIMUM * stress[end]!
+  let highest = Number.NEGATIVE_INFINITY
   for (let i = Math.max(from, 1); i < end; i++) {
     if (plasticStrainAt(strain, stress, modulusMPa, i) > EARLY_PLASTIC_STRAIN) break
-    if (isLocalMaximum(stress, i) && dropsAfter(stress, i, end)) return i
+    const isNewHighest = stress[i]! > highest
+    highest = Math.max(highest, stress[i]!)
+    if (stress[i]! < lowest || !isNewHighest || !isLocalMaximum(stress, i)) continue
+    if (dropsAfter(stress, i, end)) return i
   }
   return -1
 }

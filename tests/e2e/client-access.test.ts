@@ -61,6 +61,14 @@ describe('a client', () => {
     await waitForTable(page)
     await screenshot(page, 'client-case-list')
 
+    await page.getByTestId('status-filter').click()
+    await page.getByRole('option', { name: 'Released' }).click()
+    await page.waitForURL(`${base}/cases?status=released`)
+    await page.reload()
+    const rows = table.locator('tbody tr')
+    await expect.poll(() => rows.count()).toBe(1)
+    expect(await rows.first().textContent()).toContain('Sheared boom foot bolt')
+
     await page.goto(`${base}/cases/${otherCaseId}`)
     await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)
     expect(await page.getByTestId('case-page').count()).toBe(0)

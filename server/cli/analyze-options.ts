@@ -4,8 +4,11 @@ import {
   quantityUnit,
   TensileInputError,
   unitFactor,
+  findSpecification,
   type AnalysisOptions,
   type ColumnRole,
+  type DecisionRule,
+  type SpecificationRecord,
   type DecimalSeparator,
   type Delimiter,
   type FitRange,
@@ -20,6 +23,8 @@ export interface CommandLine {
   json: boolean
   units: 'si' | 'us'
   analysis: ImportOptions & AnalysisOptions
+  specification: SpecificationRecord | null
+  rule: DecisionRule
 }
 
 const ROLES: readonly ColumnRole[] = ['force', 'extension', 'strain', 'stress', 'time']
@@ -46,6 +51,10 @@ const OPTION_SPEC = {
   units: { type: 'string' },
   offset: { type: 'string' },
   'fit-range': { type: 'string' },
+  'hardening-range': { type: 'string' },
+  spec: { type: 'string' },
+  rule: { type: 'string' },
+  uncertainty: { type: 'string' },
   delimiter: { type: 'string' },
   decimal: { type: 'string' },
   ...Object.fromEntries(GEOMETRY_FLAGS.map((flag) => [flag, { type: 'string' }])),
@@ -61,7 +70,8 @@ type Values = Record<string, string | boolean | undefined>
 
 export const USAGE =
   'usage: npm run -s analyze -- FILE... [--diameter 12.5mm | --width W --thickness T | ' +
-  '--outer-diameter D --wall T | --area S0] [--gauge-length Le] [--offset 0.2[,1]] [--json]'
+  '--outer-diameter D --wall T | --area S0] [--gauge-length Le] [--offset 0.2[,1]] ' +
+  '[--spec NAME|list] [--rule simple|guard] [--uncertainty 5MPa,0.5%] [--json] [--units si|us]'
 
 const DELIMITERS: Readonly<Record<string, Delimiter>> = {
   comma: ',',
@@ -165,9 +175,57 @@ function perRole(values: Values, suffix: string): Partial<Record<ColumnRole, str
   )
 }
 
+/** "2:10%": the engineering-strain range of the strain-hardening fit, in percent. */
+export function parseHardeningRange(value: string): { from: number; to: number } {
+  const match = /^\s*([\d.]+)\s*:\s*([\d.]+)\s*%?\s*$/.exec(value)
+  const from = Number(match?.[1])
+  const to = Number(match?.[2])
+  if (!match || !(to > from))
+    throw new TensileInputError(`--hardening-range '${value}': write it as 2:10%`)
+  return { from, to }
+}
+
+/** "5MPa", "0.5%" or both, comma-separated: U for strengths and for A and Z. */
+export function parseUncertainty(value: string): {
+  uncertaintyMPa: number
+  uncertaintyPct: number
+} {
+  const u = { uncertaintyMPa: 0, uncertaintyPct: 0 }
+  for (const part of value.split(',')) {
+    if (quantityUnit(part) === '%') u.uncertaintyPct = Number(part.replace('%', '').trim())
+    else u.uncertaintyMPa = parseQuantity(part, 'stress', 'MPa')
+    if (!(u.uncertaintyPct >= 0) || !(u.uncertaintyMPa >= 0)) {
+      throw new TensileInputError(`--uncertainty '${value}': write it as 5MPa or 5MPa,0.5%`)
+    }
+  }
+  return u
+}
+
+function decisionRule(values: Values): DecisionRule {
+  const rule = text(values, 'rule') ?? 'simple'
+  const uncertainty = text(values, 'uncertainty')
+  if (rule === 'simple') return { kind: 'simple' }
+  if (rule !== 'guard') throw new TensileInputError(`--rule '${rule}': use simple or guard`)
+  if (uncertainty === undefined)
+    throw new TensileInputError('--rule guard needs --uncertainty, e.g. 5MPa,0.5%')
+  return { kind: 'guard', ...parseUncertainty(uncertainty) }
+}
+
+function specification(values: Values): SpecificationRecord | null {
+  const designation = text(values, 'spec')
+  if (designation === undefined) return null
+  const found = findSpecification(designation)
+  if (found === null)
+    throw new TensileInputError(
+      `--spec '${designation}' is not known; --spec list shows the records`,
+    )
+  return found
+}
+
 function analysisOptions(values: Values): ImportOptions & AnalysisOptions {
   const offset = text(values, 'offset')
   const fitRange = text(values, 'fit-range')
+  const hardeningRange = text(values, 'hardening-range')
   return {
     geometry: geometry(values),
     delimiter: lookup(DELIMITERS, text(values, 'delimiter'), 'delimiter'),
@@ -176,11 +234,13 @@ function analysisOptions(values: Values): ImportOptions & AnalysisOptions {
     units: perRole(values, 'unit'),
     offsetsPct: offset === undefined ? undefined : parseOffsets(offset),
     fitRange: fitRange === undefined ? undefined : parseFitRange(fitRange),
+    hardeningRangePct:
+      hardeningRange === undefined ? undefined : parseHardeningRange(hardeningRange),
   }
 }
 
 /** Parses argv; every mistake is a TensileInputError with one line for the user. */
-export function parseCommandLine(argv: readonly string[]): CommandLine | 'help' {
+export function parseCommandLine(argv: readonly string[]): CommandLine | 'help' | 'list' {
   let parsed: ReturnType<typeof parseArgs>
   try {
     parsed = parseArgs({
@@ -194,6 +254,7 @@ export function parseCommandLine(argv: readonly string[]): CommandLine | 'help' 
   }
   const values = parsed.values as Values
   if (values.help === true) return 'help'
+  if (text(values, 'spec') === 'list') return 'list'
   if (parsed.positionals.length === 0) throw new TensileInputError(USAGE)
   const units = text(values, 'units') ?? 'si'
   if (units !== 'si' && units !== 'us')
@@ -203,5 +264,7 @@ export function parseCommandLine(argv: readonly string[]): CommandLine | 'help' 
     json: values.json === true,
     units,
     analysis: analysisOptions(values),
+    specification: specification(values),
+    rule: decisionRule(values),
   }
 }

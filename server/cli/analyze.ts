@@ -1,13 +1,23 @@
 import { readFileSync } from 'node:fs'
-import { analyseRecord, TensileInputError, type TensileResult } from '../../shared/tensile'
+import {
+  analyseRecord,
+  evaluateConformity,
+  STARTER_SPECIFICATIONS,
+  summariseSpecimens,
+  TensileInputError,
+  type ConformityResult,
+  type TensileResult,
+} from '../../shared/tensile'
 import { parseCommandLine, USAGE, type CommandLine } from './analyze-options'
-import { formatTable } from './analyze-report'
+import { formatSummary, formatTable } from './analyze-report'
 
 /*
  * Command-line entry, a public contract that lab staff script:
- *   npm run -s analyze -- FILE [options]
+ *   npm run -s analyze -- FILE... [options]
  * Bad input or usage exits with status 2 and one line on stderr; stdout stays empty.
  */
+
+export type FileResult = TensileResult & { file: string; conformity: ConformityResult | null }
 
 function readText(file: string): string {
   try {
@@ -18,21 +28,45 @@ function readText(file: string): string {
   }
 }
 
-function analyseFile(file: string, command: CommandLine): TensileResult & { file: string } {
+function analyseFile(file: string, command: CommandLine): FileResult {
   try {
-    return { file, ...analyseRecord(readText(file), command.analysis) }
+    const result = analyseRecord(readText(file), command.analysis)
+    const spec = command.specification
+    return {
+      file,
+      ...result,
+      conformity: spec === null ? null : evaluateConformity(result, spec, command.rule),
+    }
   } catch (error) {
     if (error instanceof TensileInputError) throw new TensileInputError(`${file}: ${error.message}`)
     throw error
   }
 }
 
+function specificationList(json: boolean): string {
+  if (json) return JSON.stringify(STARTER_SPECIFICATIONS, null, 2)
+  return STARTER_SPECIFICATIONS.map(
+    (s) => `${s.designation.padEnd(14)}${s.standard} ${s.grade} (${s.source})`,
+  ).join('\n')
+}
+
 function run(argv: readonly string[]): string {
   const command = parseCommandLine(argv)
   if (command === 'help') return USAGE
+  if (command === 'list') return specificationList(argv.includes('--json'))
   const results = command.files.map((file) => analyseFile(file, command))
-  if (command.json) return JSON.stringify(results.length === 1 ? results[0] : results, null, 2)
-  return results.map((result) => formatTable(result, command.units, result.file)).join('\n\n')
+  if (results.length === 1) {
+    const [only] = results as [FileResult]
+    return command.json ? JSON.stringify(only, null, 2) : formatTable(only, command.units)
+  }
+  const summary = {
+    summary: { specimens: results.length, properties: summariseSpecimens(results) },
+  }
+  if (command.json) return JSON.stringify([...results, summary], null, 2)
+  return [
+    ...results.map((r) => formatTable(r, command.units)),
+    formatSummary(summary.summary),
+  ].join('\n\n')
 }
 
 function main(): void {

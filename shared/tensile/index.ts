@@ -22,3 +22,27 @@ export {
   unitFactor,
   type Quantity,
 } from './units'
+export {
+  describeRule,
+  evaluateConformity,
+  type ConformityItem,
+  type ConformityResult,
+  type DecisionRule,
+  type OverallVerdict,
+  type Verdict,
+} from './conformity'
+export type {
+  ElongationRequirement,
+  GaugeBasis,
+  SpecificationRecord,
+  YieldKind,
+} from './specification'
+export { findSpecification, STARTER_SPECIFICATIONS } from './specifications'
+export {
+  summariseSpecimens,
+  summariseValues,
+  SUMMARISED_PROPERTIES,
+  type PropertySummary,
+} from './statistics'
+export { discontinuousYield, type DiscontinuousYield } from './discontinuous-yield'
+export { strainHardening, defaultHardeningRange, type HardeningFit } from './strain-hardening'

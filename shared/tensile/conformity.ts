@@ -1,0 +1,236 @@
+import type { TensileResult } from './result'
+import { ISO_6892_ROUNDING, roundToIncrement, type RoundingSettings } from './rounding'
+import {
+  describeBasis,
+  type ElongationRequirement,
+  type GaugeBasis,
+  type SpecificationRecord,
+} from './specification'
+
+/** How a measured value is compared with a limit (ISO/IEC 17025 7.8.6 asks that it be stated). */
+export type DecisionRule =
+  | { kind: 'simple' }
+  /** Guard band of the expanded uncertainty U: MPa for strengths, percentage points for A and Z. */
+  | { kind: 'guard'; uncertaintyMPa: number; uncertaintyPct: number }
+
+export type Verdict = 'pass' | 'fail' | 'inconclusive' | 'not comparable' | 'not measured'
+export type OverallVerdict = 'pass' | 'fail' | 'inconclusive' | 'incomplete'
+
+export interface ConformityItem {
+  property: string
+  value: number | null
+  limit: number
+  bound: 'min' | 'max'
+  verdict: Verdict
+  note?: string
+}
+
+export interface ConformityResult {
+  specification: { designation: string; standard: string; grade: string; source: string }
+  rule: string
+  overall: OverallVerdict
+  items: ConformityItem[]
+}
+
+type Kind = 'strength' | 'elongation' | 'reduction'
+
+interface Check {
+  property: string
+  value: number | null
+  limit: number
+  bound: 'min' | 'max'
+  kind: Kind
+  note?: string
+  /** Set when the value cannot be compared at all (a different gauge-length basis). */
+  preset?: Verdict
+}
+
+function increment(kind: Kind, rounding: RoundingSettings): number {
+  if (kind === 'strength') return rounding.strengthMPa
+  return kind === 'elongation' ? rounding.elongationPct : rounding.reductionOfAreaPct
+}
+
+/** Simple acceptance: the value rounded as the standard reports it meets the limit (ASTM E29 rounding method). */
+function simpleVerdict(check: Check, value: number, rounding: RoundingSettings): Verdict {
+  const rounded = roundToIncrement(value, increment(check.kind, rounding))
+  const meets = check.bound === 'min' ? rounded >= check.limit : rounded <= check.limit
+  return meets ? 'pass' : 'fail'
+}
+
+/** Guard band: pass only when clear of the limit by more than U, fail only when beyond it by more than U. */
+function guardedVerdict(check: Check, value: number, u: number): Verdict {
+  const margin = check.bound === 'min' ? value - check.limit : check.limit - value
+  if (margin > u) return 'pass'
+  if (margin < -u) return 'fail'
+  return 'inconclusive'
+}
+
+function judge(check: Check, rule: DecisionRule, rounding: RoundingSettings): ConformityItem {
+  const { kind: _kind, preset, ...item } = check
+  if (preset !== undefined) return { ...item, verdict: preset }
+  if (check.value === null) return { ...item, verdict: 'not measured' }
+  if (rule.kind === 'simple')
+    return { ...item, verdict: simpleVerdict(check, check.value, rounding) }
+  const u = check.kind === 'strength' ? rule.uncertaintyMPa : rule.uncertaintyPct
+  return { ...item, verdict: guardedVerdict(check, check.value, u) }
+}
+
+/**
+ * The yield the specification asks for. With continuous yielding there is no ReH and Rp0.2
+ * stands in for it (common practice); with discontinuous yielding Rp is still there, and the
+ * item names the yield that was compared.
+ */
+function yieldCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
+  if (spec.yield === null) return []
+  const base = { limit: spec.yield.minMPa, bound: 'min' as const, kind: 'strength' as const }
+  const rp02 = result.yieldStrengthsMPa['0.2'] ?? null
+  switch (spec.yield.kind) {
+    case 'ReH':
+      return result.discontinuousYielding
+        ? [{ ...base, property: 'ReH', value: result.upperYieldMPa }]
+        : [
+            {
+              ...base,
+              property: 'Rp0.2',
+              value: rp02,
+              note: 'continuous yielding: Rp0.2 compared in place of ReH',
+            },
+          ]
+    case 'Rp0.2':
+      return [
+        {
+          ...base,
+          property: 'Rp0.2',
+          value: rp02,
+          note: result.discontinuousYielding
+            ? 'discontinuous yielding; the specification asks for Rp0.2'
+            : undefined,
+        },
+      ]
+    case 'Rt0.5':
+      return [{ ...base, property: 'Rt0.5', value: result.rt05MPa }]
+  }
+}
+
+function tensileChecks(spec: SpecificationRecord, result: TensileResult): Check[] {
+  const { minMPa, maxMPa } = spec.tensileStrength
+  const value = result.tensileStrengthMPa
+  const checks: Check[] = []
+  if (minMPa !== null)
+    checks.push({ property: 'Rm', value, limit: minMPa, bound: 'min', kind: 'strength' })
+  if (maxMPa !== null)
+    checks.push({ property: 'Rm', value, limit: maxMPa, bound: 'max', kind: 'strength' })
+  return checks
+}
+
+/** Gauge length a basis stands for on this specimen, in mm; null when it cannot be worked out. */
+function basisLength(basis: GaugeBasis, result: TensileResult): number | null {
+  const area = result.crossSectionMm2
+  switch (basis.kind) {
+    case 'fixed':
+      return basis.lengthMm
+    case 'proportional':
+      return area === null ? null : basis.k * Math.sqrt(area)
+    case 'diameters': {
+      const diameter = result.diameterMm ?? (area === null ? null : Math.sqrt((4 * area) / Math.PI))
+      return diameter === null ? null : basis.multiple * diameter
+    }
+  }
+}
+
+/*
+ * Same basis: a fixed gauge within 1 % (common practice); a proportional one within 10 %, the
+ * margin ISO 6892-1 allows when L0 is rounded to a multiple of 5 mm (recalled from memory).
+ */
+function sameBasis(requirement: ElongationRequirement, result: TensileResult): boolean {
+  const wanted = basisLength(requirement.basis, result)
+  const tested = result.originalGaugeLengthMm
+  if (wanted === null || tested === null) return false
+  const tolerance = requirement.basis.kind === 'fixed' ? 0.01 : 0.1
+  return Math.abs(tested - wanted) <= tolerance * wanted
+}
+
+/** Elongation after fracture, from the marks when measured, on the specimen's gauge basis. */
+function elongationCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
+  const first = spec.elongation[0]
+  if (first === undefined) return []
+  const value = result.elongationAfterFractureFromLuPct ?? result.elongationAfterFracturePct
+  const matching = spec.elongation.find((requirement) => sameBasis(requirement, result))
+  const requirement = matching ?? first
+  const check: Check = {
+    property: `A (${describeBasis(requirement.basis)})`,
+    value,
+    limit: requirement.minPct,
+    bound: 'min',
+    kind: 'elongation',
+  }
+  if (matching) return [check]
+  const tested = result.originalGaugeLengthMm
+  const note = `specimen gauge length ${tested === null ? 'unknown' : `${tested.toFixed(1)} mm`}`
+  return [{ ...check, preset: 'not comparable', note }]
+}
+
+function otherChecks(spec: SpecificationRecord, result: TensileResult): Check[] {
+  const checks: Check[] = []
+  if (spec.reductionOfAreaMinPct !== null) {
+    checks.push({
+      property: 'Z',
+      value: result.reductionOfAreaPct,
+      limit: spec.reductionOfAreaMinPct,
+      bound: 'min',
+      kind: 'reduction',
+    })
+  }
+  const hardness = spec.hardness
+  if (hardness?.max != null) {
+    checks.push({
+      property: `hardness (${hardness.scale})`,
+      value: null,
+      limit: hardness.max,
+      bound: 'max',
+      kind: 'strength',
+      note: 'not part of a tensile test',
+    })
+  }
+  return checks
+}
+
+/** Worst verdict first: any fail fails; then any inconclusive; then anything not compared. */
+function overallVerdict(items: readonly ConformityItem[]): OverallVerdict {
+  if (items.some((item) => item.verdict === 'fail')) return 'fail'
+  if (items.some((item) => item.verdict === 'inconclusive')) return 'inconclusive'
+  if (items.some((item) => item.verdict !== 'pass')) return 'incomplete'
+  return 'pass'
+}
+
+export function describeRule(rule: DecisionRule): string {
+  if (rule.kind === 'simple') return 'simple acceptance on values rounded as reported (ASTM E29)'
+  return `guard band of the expanded uncertainty U = ${rule.uncertaintyMPa} MPa, ${rule.uncertaintyPct} % (ISO/IEC 17025 7.8.6)`
+}
+
+/** Compares one result with a specification under a stated decision rule. */
+export function evaluateConformity(
+  result: TensileResult,
+  spec: SpecificationRecord,
+  rule: DecisionRule,
+  rounding: RoundingSettings = ISO_6892_ROUNDING,
+): ConformityResult {
+  const checks = [
+    ...yieldCheck(spec, result),
+    ...tensileChecks(spec, result),
+    ...elongationCheck(spec, result),
+    ...otherChecks(spec, result),
+  ]
+  const items = checks.map((check) => judge(check, rule, rounding))
+  return {
+    specification: {
+      designation: spec.designation,
+      standard: spec.standard,
+      grade: spec.grade,
+      source: spec.source,
+    },
+    rule: describeRule(rule),
+    overall: overallVerdict(items),
+    items,
+  }
+}

@@ -66,8 +66,8 @@ describe('a client', () => {
     await page.waitForURL(`${base}/cases?status=released`)
     await page.reload()
     const rows = table.locator('tbody tr')
-    await expect.poll(() => rows.count()).toBe(1)
-    expect(await rows.first().textContent()).toContain('Sheared boom foot bolt')
+    await expect.poll(() => rows.first().textContent()).toContain('Sheared boom foot bolt')
+    expect(await rows.count()).toBe(1)
 
     await page.goto(`${base}/cases/${otherCaseId}`)
     await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)

@@ -17,13 +17,37 @@ export interface RecordLayout {
 const HEAD_SCAN_LIMIT = 5000
 const CONFIRMING_ROWS = 3
 
-function splitRow(line: string, dialect: Dialect): string[] {
-  const row = Papa.parse<string[]>(line, { delimiter: dialect.delimiter }).data[0] ?? []
-  return row.map((cell) => cell.trim())
+/**
+ * The first lines of a file, split into cells by Papa Parse on first use, so that only the
+ * preamble, the header and a few data lines are ever parsed here; null for a blank line.
+ */
+class HeadRows {
+  private readonly cache = new Map<number, string[] | null>()
+  readonly length: number
+
+  constructor(
+    private readonly lines: readonly string[],
+    private readonly dialect: Dialect,
+  ) {
+    this.length = Math.min(lines.length, HEAD_SCAN_LIMIT)
+  }
+
+  at(index: number): string[] | null {
+    if (index < 0 || index >= this.length) return null
+    if (!this.cache.has(index)) this.cache.set(index, this.split(this.lines[index] ?? ''))
+    return this.cache.get(index) ?? null
+  }
+
+  private split(line: string): string[] | null {
+    if (line.trim() === '') return null
+    const row = Papa.parse<string[]>(line, { delimiter: this.dialect.delimiter }).data[0] ?? []
+    return row.map((cell) => cell.trim())
+  }
 }
 
 /** Mostly numbers, at least two: a text cell in an unused column must not hide the data. */
-function isDataRow(row: readonly string[], dialect: Dialect): boolean {
+function isDataRow(row: readonly string[] | null, dialect: Dialect): boolean {
+  if (row === null) return false
   const filled = row.filter((cell) => cell !== '')
   const numeric = filled.filter((cell) => isNumericLike(cell, dialect.decimal)).length
   return numeric >= 2 && numeric * 2 >= filled.length
@@ -34,22 +58,36 @@ function isUnitsRow(row: readonly string[]): boolean {
   return bare.every((cell) => cell === '' || isKnownUnit(cell)) && bare.some((cell) => cell !== '')
 }
 
-/** Index of the first line that starts a run of numeric rows of the body's width. */
-function findDataStart(rows: readonly (string[] | null)[], dialect: Dialect): number {
-  const isData = (row: string[] | null | undefined): boolean =>
-    row !== null && row !== undefined && isDataRow(row, dialect)
+/** Index of the first line that starts a run of numeric rows. */
+function findDataStart(rows: HeadRows, dialect: Dialect): number {
   for (let i = 0; i < rows.length; i++) {
-    if (!isData(rows[i])) continue
-    const following = rows.slice(i).filter((row) => row !== null)
-    if (following.slice(0, CONFIRMING_ROWS).every(isData)) return i
+    if (!isDataRow(rows.at(i), dialect)) continue
+    let confirmed = 0
+    let k = i
+    for (; k < rows.length && confirmed < CONFIRMING_ROWS; k++) {
+      const row = rows.at(k)
+      if (row === null) continue
+      if (!isDataRow(row, dialect)) break
+      confirmed++
+    }
+    if (confirmed === CONFIRMING_ROWS || k === rows.length) return i
   }
   throw new TensileInputError('No numeric data found in the file')
 }
 
 /** The nearest non-empty line above `index`, or -1. */
-function previousFilled(rows: readonly (string[] | null)[], index: number): number {
-  for (let i = index - 1; i >= 0; i--) if (rows[i] !== null) return i
+function previousFilled(rows: HeadRows, index: number): number {
+  for (let i = index - 1; i >= 0; i--) if (rows.at(i) !== null) return i
   return -1
+}
+
+function preambleRows(rows: HeadRows, end: number): string[][] {
+  const preamble: string[][] = []
+  for (let i = 0; i < end; i++) {
+    const row = rows.at(i)
+    if (row !== null) preamble.push(row)
+  }
+  return preamble
 }
 
 /**
@@ -58,23 +96,21 @@ function previousFilled(rows: readonly (string[] | null)[], index: number): numb
  * when another row sits above it to name the columns.
  */
 export function locateLayout(lines: readonly string[], dialect: Dialect): RecordLayout {
-  const head = lines.slice(0, HEAD_SCAN_LIMIT)
-  const rows = head.map((line) => (line.trim() === '' ? null : splitRow(line, dialect)))
+  const rows = new HeadRows(lines, dialect)
   const dataStart = findDataStart(rows, dialect)
-  const width = rows[dataStart]?.length ?? 0
+  const width = rows.at(dataStart)?.length ?? 0
   const above = previousFilled(rows, dataStart)
-  const aboveRow = rows[above] ?? null
+  const aboveRow = rows.at(above)
   if (aboveRow === null || aboveRow.every((cell) => isNumericLike(cell, dialect.decimal))) {
     return { preamble: [], header: null, unitsRow: null, dataStart, width }
   }
   const twoAbove = previousFilled(rows, above)
-  const twoAboveRow = rows[twoAbove] ?? null
+  const twoAboveRow = rows.at(twoAbove)
   const hasUnitsRow = isUnitsRow(aboveRow) && twoAboveRow !== null && twoAboveRow.length >= 2
   const headerIndex = hasUnitsRow ? twoAbove : above
-  const preamble = rows.slice(0, headerIndex).filter((row): row is string[] => row !== null)
   return {
-    preamble,
-    header: rows[headerIndex] ?? null,
+    preamble: preambleRows(rows, headerIndex),
+    header: rows.at(headerIndex),
     unitsRow: hasUnitsRow ? aboveRow : null,
     dataStart,
     width,

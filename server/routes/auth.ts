@@ -1,7 +1,7 @@
 import { Router, type NextFunction, type Request, type Response } from 'express'
 import { ChangePasswordRequest, LoginRequest } from '../../shared/schemas/auth'
 import type { Config } from '../config'
-import { Unauthorized } from '../errors'
+import { AppError } from '../errors'
 import { issueCsrfToken } from '../auth/csrf'
 import type { AppPassport } from '../auth/passport'
 import { loginRateLimits } from '../auth/login-rate-limit'
@@ -15,7 +15,7 @@ function authenticate(passport: AppPassport, req: Request, res: Response, next: 
   req.body = res.locals.body
   passport.authenticate('local', (error: unknown, user: Express.User | false) => {
     if (error) return next(error)
-    if (!user) return next(new Unauthorized(GENERIC_FAILURE))
+    if (!user) return next(new AppError(401, 'invalid_credentials', GENERIC_FAILURE))
     // passport regenerates the session id here, which also retires the old CSRF token
     req.logIn(user, (loginError) => {
       if (loginError) return next(loginError)

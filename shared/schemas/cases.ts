@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { CASE_STATES } from '../workflow/case-states'
-import { Id, IsoDate, PageQuery, trimmed } from './common'
+import { Id, idOf, IsoDate, PageQuery, trimmed } from './common'
 
 export const CaseStatus = z.enum(CASE_STATES)
 export const PRIORITIES = ['low', 'normal', 'high', 'urgent'] as const
@@ -11,12 +11,17 @@ export const CASE_NUMBER_PATTERN = /^FL-\d{4}-\d{4}$/
 
 export const CaseCreate = z.strictObject({
   title: trimmed(191, 'Title'),
-  organisationId: Id,
+  organisationId: idOf('Choose the client organisation.'),
   component: trimmed(191, 'Component'),
-  partNumber: z.string().trim().max(100).nullable().default(null),
+  partNumber: z
+    .string()
+    .trim()
+    .max(100, 'Part number is at most 100 characters.')
+    .nullable()
+    .default(null),
   material: trimmed(191, 'Material as specified'),
   priority: Priority.default('normal'),
-  leadInvestigatorId: Id.nullable().default(null),
+  leadInvestigatorId: idOf('Choose an investigator from the list.').nullable().default(null),
   failureDate: IsoDate.nullable().default(null),
   dueDate: IsoDate.nullable().default(null),
 })

@@ -1,6 +1,10 @@
 import { z } from 'zod'
 
-export const Id = z.coerce.number().int().positive()
+/** A record id; `message` words the refusal for the field it sits in. */
+export const idOf = (message: string) =>
+  z.coerce.number({ error: message }).int(message).positive(message)
+
+export const Id = idOf('Use the id of an existing record.')
 export type Id = z.infer<typeof Id>
 
 export const IdParams = z.strictObject({ id: Id })

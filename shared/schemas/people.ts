@@ -1,13 +1,13 @@
 import { z } from 'zod'
 import { Email } from './auth'
-import { Id, trimmed } from './common'
+import { idOf, trimmed } from './common'
 import { Role } from './roles'
 
 const personFields = {
   email: Email,
   name: trimmed(191, 'Name'),
   roles: z.array(Role).min(1, 'Choose at least one role.').max(5),
-  organisationId: Id.nullable().default(null),
+  organisationId: idOf('Choose the client organisation.').nullable().default(null),
 }
 
 /** A client belongs to exactly one organisation and holds no staff role; staff belong to none. */

@@ -27,19 +27,13 @@ export function useFormErrors() {
     formError.value = ''
   }
 
-  /**
-   * Parses the form's value; on failure shows each issue beside its field and answers undefined.
-   * `plainMessages` words the issues whose schema carries no message of its own.
-   */
+  /** Parses the form's value; on failure shows each issue beside its field and answers undefined. */
   function validate<Schema extends z.ZodType>(
     schema: Schema,
     value: unknown,
-    plainMessages: FieldMessages = {},
   ): z.output<Schema> | undefined {
     clear()
-    const result = schema.safeParse(value, {
-      error: (issue) => plainMessages[String(issue.path?.[0] ?? '')],
-    })
+    const result = schema.safeParse(value)
     if (result.success) return result.data
     fieldErrors.value = firstMessagePerField(
       result.error.issues.map((issue) => [issue.path.map(String).join('.'), issue.message]),

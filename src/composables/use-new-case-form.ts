@@ -7,13 +7,6 @@ import { useOrganisationsStore } from '@/stores/organisations'
 import { useSessionStore } from '@/stores/session'
 import { CaseCreate, type Priority } from '../../shared/schemas/cases'
 
-/** Words for the issues the shared schema reports without a message of its own. */
-const PLAIN_MESSAGES = {
-  organisationId: 'Choose the client organisation.',
-  leadInvestigatorId: 'Choose an investigator from the list.',
-  partNumber: 'Part number is at most 100 characters.',
-}
-
 function emptyToNull(text: string): string | null {
   return text.trim() === '' ? null : text
 }
@@ -54,16 +47,12 @@ export function useNewCaseForm() {
   })
 
   async function submit(): Promise<void> {
-    const newCase = validate(
-      CaseCreate,
-      {
-        ...form,
-        partNumber: emptyToNull(form.partNumber),
-        failureDate: emptyToNull(form.failureDate),
-        dueDate: emptyToNull(form.dueDate),
-      },
-      PLAIN_MESSAGES,
-    )
+    const newCase = validate(CaseCreate, {
+      ...form,
+      partNumber: emptyToNull(form.partNumber),
+      failureDate: emptyToNull(form.failureDate),
+      dueDate: emptyToNull(form.dueDate),
+    })
     if (!newCase) return
     saving.value = true
     try {

@@ -46,8 +46,8 @@ export function installSessionGuard(router: Router): void {
   })
 
   onSessionProblem((error, path) => {
-    // Asking who is signed in and signing in answer 401 as part of their ordinary work.
-    if (path === '/auth/me' || path === '/auth/login') return
+    // Asking who is signed in answers 401 as part of its ordinary work.
+    if (path === '/auth/me') return
     const current = router.currentRoute.value
     if (error.code === 'password_change_required') {
       if (current.name !== 'set-password') void router.push(withReturn('set-password', current))

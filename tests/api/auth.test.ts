@@ -48,7 +48,8 @@ describe('sign-in', () => {
     const unknownEmail = await new ApiSession(app).signIn('nobody@example.test', 'whatever12345')
     expect(wrongPassword.status).toBe(401)
     expect(unknownEmail.status).toBe(401)
-    expect(wrongPassword.body.error.message).toBe(unknownEmail.body.error.message)
+    expect(wrongPassword.body.error).toEqual(unknownEmail.body.error)
+    expect(wrongPassword.body.error.code).toBe('invalid_credentials')
   })
 
   it('issues a new session id at sign-in', async () => {

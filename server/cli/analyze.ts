@@ -17,6 +17,14 @@ import { formatSummary, formatTable } from './analyze-report'
  * Bad input or usage exits with status 2 and one line on stderr; stdout stays empty.
  */
 
+/** Printed under every readable report: the figures are inputs to judgement, not a verdict. */
+export const CAUTION = [
+  'Computed from the record as given: results are only as good as the specimen measurements and',
+  'the calibration of the machine and extensometer. Conformity follows the stated decision rule;',
+  'check specification limits against the current edition of the standard, and leave conclusions',
+  'to the applicable codes, the client’s specifications and licensed professional judgment.',
+].join('\n')
+
 export type FileResult = TensileResult & { file: string; conformity: ConformityResult | null }
 
 function readText(file: string): string {
@@ -57,7 +65,9 @@ function run(argv: readonly string[]): string {
   const results = command.files.map((file) => analyseFile(file, command))
   if (results.length === 1) {
     const [only] = results as [FileResult]
-    return command.json ? JSON.stringify(only, null, 2) : formatTable(only, command.units)
+    return command.json
+      ? JSON.stringify(only, null, 2)
+      : `${formatTable(only, command.units)}\n\n${CAUTION}`
   }
   const summary = {
     summary: { specimens: results.length, properties: summariseSpecimens(results) },
@@ -66,6 +76,7 @@ function run(argv: readonly string[]): string {
   return [
     ...results.map((r) => formatTable(r, command.units)),
     formatSummary(summary.summary),
+    CAUTION,
   ].join('\n\n')
 }
 

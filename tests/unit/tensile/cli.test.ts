@@ -89,6 +89,7 @@ describe('command-line entry on a fresh curve', () => {
     expect(Math.abs(shown - TEMPERED_STEEL.sigma0MPa / MPA_PER_KSI)).toBeLessThan(
       0.005 * shown + 0.05,
     )
+    expect(run.stdout).toMatch(/only as good as the specimen measurements/)
   })
 
   it('uses an elastic fit range given on the command line', () => {

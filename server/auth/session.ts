@@ -54,6 +54,7 @@ export function enforceAbsoluteLifetime(config: Config): RequestHandler {
       next()
       return
     }
-    req.session.destroy((error) => next(error))
+    // regenerate, not destroy: the old session is removed and the request goes on signed out
+    req.session.regenerate((error) => next(error))
   }
 }

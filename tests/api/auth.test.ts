@@ -184,6 +184,39 @@ describe('sign-out and session end', () => {
   })
 })
 
+describe('session lifetime', () => {
+  it('ends a session older than the absolute lifetime, however active', async () => {
+    const session = await signedIn(app, investigator.email, investigator.password)
+    await session.get('/api/auth/me').expect(200)
+    const thirteenHoursAgo = Date.now() - 13 * 3_600_000
+    const rows = (await db('sessions').select('sid', 'sess')) as { sid: string; sess: unknown }[]
+    const stored = (value: unknown) =>
+      (typeof value === 'string' ? JSON.parse(value) : value) as { passport?: { user?: number } }
+    const mine = rows.filter((row) => stored(row.sess).passport?.user === investigator.id)
+    expect(mine.length).toBeGreaterThan(0)
+    for (const row of mine) {
+      const sess = { ...stored(row.sess), signedInAt: thirteenHoursAgo }
+      await db('sessions')
+        .where({ sid: row.sid })
+        .update({ sess: JSON.stringify(sess) })
+    }
+    await session.get('/api/auth/me').expect(401)
+  })
+
+  it('marks the cookie Secure in production behind an HTTPS proxy', async () => {
+    const production = createApp({
+      db,
+      config: testConfig({ nodeEnv: 'production' }),
+      clientDir: '/nonexistent',
+    })
+    const response = await request(production)
+      .get('/api/auth/csrf')
+      .set('X-Forwarded-Proto', 'https')
+      .expect(200)
+    expect(sessionCookie(response)).toMatch(/;\s*Secure/i)
+  })
+})
+
 describe('first password', () => {
   it('keeps someone with a one-time password to changing it, then lets them work', async () => {
     const person = await makePerson(db, ['reviewer'], { mustChangePassword: true })

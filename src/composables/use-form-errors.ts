@@ -21,6 +21,7 @@ function firstMessagePerField(entries: [string, string][]): FieldMessages {
 export function useFormErrors() {
   const fieldErrors = ref<FieldMessages>({})
   const formError = ref('')
+  const sending = ref(false)
 
   function clear(): void {
     fieldErrors.value = {}
@@ -51,6 +52,23 @@ export function useFormErrors() {
     formError.value = error.message
   }
 
+  /**
+   * Sends a checked form: `sending` is true meanwhile, and a refusal lands on the form. Answers
+   * whether it went through.
+   */
+  async function send(action: () => Promise<unknown>): Promise<boolean> {
+    sending.value = true
+    try {
+      await action()
+      return true
+    } catch (error) {
+      showServerError(error)
+      return false
+    } finally {
+      sending.value = false
+    }
+  }
+
   /** Takes a field's message away as soon as the person edits that field. */
   function clearWhenEdited(form: Record<string, unknown>): void {
     watch(
@@ -65,5 +83,5 @@ export function useFormErrors() {
     )
   }
 
-  return { fieldErrors, formError, clear, validate, showServerError, clearWhenEdited }
+  return { fieldErrors, formError, sending, clear, validate, send, clearWhenEdited }
 }

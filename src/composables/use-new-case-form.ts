@@ -16,7 +16,7 @@ export function useNewCaseForm() {
   const router = useRouter()
   const session = useSessionStore()
   const organisations = useOrganisationsStore()
-  const { fieldErrors, formError, validate, showServerError, clearWhenEdited } = useFormErrors()
+  const { fieldErrors, formError, sending, validate, send, clearWhenEdited } = useFormErrors()
 
   const form = reactive({
     title: '',
@@ -31,7 +31,6 @@ export function useNewCaseForm() {
   })
   const staff = ref<StaffMember[]>([])
   clearWhenEdited(form)
-  const saving = ref(false)
 
   const investigators = computed(() =>
     staff.value.filter((member) => member.roles.includes('investigator')),
@@ -54,16 +53,11 @@ export function useNewCaseForm() {
       dueDate: emptyToNull(form.dueDate),
     })
     if (!newCase) return
-    saving.value = true
-    try {
+    await send(async () => {
       const created = await createCase(newCase)
       await router.push({ name: 'case', params: { id: created.id } })
-    } catch (error) {
-      showServerError(error)
-    } finally {
-      saving.value = false
-    }
+    })
   }
 
-  return { form, fieldErrors, formError, saving, investigators, organisations, submit }
+  return { form, fieldErrors, formError, sending, investigators, organisations, submit }
 }

@@ -34,10 +34,15 @@ export async function rollbackAll(db: Knex): Promise<string[]> {
   return undone
 }
 
+/** Names of the tables in the current database. */
+export async function listTables(db: Knex): Promise<string[]> {
+  const [rows] = (await db.raw('SHOW TABLES')) as [Record<string, string>[]]
+  return rows.map((row) => Object.values(row)[0]).filter((name) => name !== undefined)
+}
+
 /** Drops every table in the current database: tests start from nothing. */
 export async function dropAllTables(db: Knex): Promise<void> {
-  const [rows] = (await db.raw('SHOW TABLES')) as [Record<string, string>[]]
-  const tables = rows.map((row) => Object.values(row)[0]).filter((name) => name !== undefined)
+  const tables = await listTables(db)
   if (tables.length === 0) return
   // One connection for all three statements: the foreign-key switch is per connection.
   await db.transaction(async (trx) => {

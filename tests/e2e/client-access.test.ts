@@ -1,20 +1,8 @@
 import { request } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import {
-  openBrowser,
-  screenshot,
-  signIn,
-  unexpectedErrors,
-  waitForTable,
-  type BrowserSession,
-} from '../helpers/browser'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, signIn, unexpectedErrors, waitForTable, useBrowser } from '../helpers/browser'
 
-let browser: BrowserSession
-
-beforeAll(async () => {
-  browser = await openBrowser()
-})
-afterAll(() => browser.close())
+const browser = useBrowser()
 
 /** Asks the API, signed in as the investigator, for the id of a case of the given organisation. */
 async function caseIdOf(organisationName: string): Promise<number> {
@@ -43,7 +31,7 @@ async function caseIdOf(organisationName: string): Promise<number> {
 
 describe('a client', () => {
   it("sees only the own organisation's cases and not-found for another's case", async () => {
-    const page = browser.page
+    const page = browser().page
     const base = inject('baseUrl')
     const otherCaseId = await caseIdOf('Quillon Process Fittings')
 
@@ -78,7 +66,7 @@ describe('a client', () => {
     await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)
 
     expect(
-      unexpectedErrors(browser.errors, [
+      unexpectedErrors(browser().errors, [
         { status: 401, path: '/auth/me' },
         { status: 404, path: `/cases/${otherCaseId}` },
       ]),

@@ -1,23 +1,11 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import {
-  openBrowser,
-  screenshot,
-  signIn,
-  unexpectedErrors,
-  waitForTable,
-  type BrowserSession,
-} from '../helpers/browser'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, signIn, unexpectedErrors, waitForTable, useBrowser } from '../helpers/browser'
 
-let browser: BrowserSession
-
-beforeAll(async () => {
-  browser = await openBrowser()
-})
-afterAll(() => browser.close())
+const browser = useBrowser()
 
 describe('a new staff member', () => {
   it('is added by an administrator, signs in with the one-time password and sets their own', async () => {
-    const page = browser.page
+    const page = browser().page
     const base = inject('baseUrl')
     const email = `lab.${Date.now()}@demo.test`
     const ownPassword = 'fatigue-striations-42'
@@ -71,6 +59,6 @@ describe('a new staff member', () => {
     await waitForTable(page)
     await screenshot(page, 'first-case-list')
 
-    expect(unexpectedErrors(browser.errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
+    expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 })

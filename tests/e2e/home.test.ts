@@ -1,12 +1,7 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { openBrowser, screenshot, unexpectedErrors, type BrowserSession } from '../helpers/browser'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, unexpectedErrors, useBrowser } from '../helpers/browser'
 
-let browser: BrowserSession
-
-beforeAll(async () => {
-  browser = await openBrowser()
-})
-afterAll(() => browser.close())
+const browser = useBrowser()
 
 /** Signed out, the app asks once who is signed in and hears 401: expected, and quiet. */
 const SIGNED_OUT_CHECK = { status: 401, path: '/auth/me' }
@@ -15,30 +10,30 @@ describe('the start page', () => {
   it('sends a visitor to sign-in, with the bundled font, no console errors and no request to another host', async () => {
     const base = inject('baseUrl')
     const foreign: string[] = []
-    browser.page.on('request', (req) => {
+    browser().page.on('request', (req) => {
       if (!req.url().startsWith(base) && !req.url().startsWith('data:')) foreign.push(req.url())
     })
-    await browser.page.goto(base)
-    await browser.page.waitForURL(`${base}/sign-in`)
-    await expect.poll(() => browser.page.getByText('Fractolog').first().isVisible()).toBe(true)
-    await expect.poll(() => browser.page.getByTestId('sign-in-form').isVisible()).toBe(true)
-    const fontLoaded = await browser.page.evaluate(async () => {
+    await browser().page.goto(base)
+    await browser().page.waitForURL(`${base}/sign-in`)
+    await expect.poll(() => browser().page.getByText('Fractolog').first().isVisible()).toBe(true)
+    await expect.poll(() => browser().page.getByTestId('sign-in-form').isVisible()).toBe(true)
+    const fontLoaded = await browser().page.evaluate(async () => {
       await document.fonts.ready
       return document.fonts.check('16px "Merriweather Sans"')
     })
     expect(fontLoaded).toBe(true)
-    await screenshot(browser.page, 'sign-in')
-    expect(unexpectedErrors(browser.errors, [SIGNED_OUT_CHECK])).toEqual([])
+    await screenshot(browser().page, 'sign-in')
+    expect(unexpectedErrors(browser().errors, [SIGNED_OUT_CHECK])).toEqual([])
     expect(foreign).toEqual([])
   })
 
   it('shows the not-found page for an unknown address', async () => {
-    await browser.page.goto(`${inject('baseUrl')}/no/such/page`)
-    await expect.poll(() => browser.page.getByTestId('not-found').isVisible()).toBe(true)
+    await browser().page.goto(`${inject('baseUrl')}/no/such/page`)
+    await expect.poll(() => browser().page.getByTestId('not-found').isVisible()).toBe(true)
   })
 
   it('refuses a wrong password with one plain message', async () => {
-    const page = browser.page
+    const page = browser().page
     await page.goto(`${inject('baseUrl')}/sign-in`)
     await page.locator('#email').fill('investigator@demo.test')
     await page.locator('#password').fill('not-the-password')
@@ -49,6 +44,6 @@ describe('the start page', () => {
     expect(page.url()).toBe(`${inject('baseUrl')}/sign-in`)
     await screenshot(page, 'sign-in-refused')
     const refusedSignIn = { status: 401, path: '/auth/login' }
-    expect(unexpectedErrors(browser.errors, [SIGNED_OUT_CHECK, refusedSignIn])).toEqual([])
+    expect(unexpectedErrors(browser().errors, [SIGNED_OUT_CHECK, refusedSignIn])).toEqual([])
   })
 })

@@ -1,23 +1,11 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import {
-  openBrowser,
-  screenshot,
-  signIn,
-  unexpectedErrors,
-  waitForTable,
-  type BrowserSession,
-} from '../helpers/browser'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, signIn, unexpectedErrors, waitForTable, useBrowser } from '../helpers/browser'
 
-let browser: BrowserSession
-
-beforeAll(async () => {
-  browser = await openBrowser()
-})
-afterAll(() => browser.close())
+const browser = useBrowser()
 
 describe('an investigator opening a case', () => {
   it('fills the new-case form, lands on the case, moves it on and finds it in the list', async () => {
-    const page = browser.page
+    const page = browser().page
     const base = inject('baseUrl')
     const title = `Snapped lifting lug ${Date.now()}`
     await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
@@ -72,6 +60,6 @@ describe('an investigator opening a case', () => {
     await rows.first().getByText(title).click()
     await page.waitForURL(/\/cases\/\d+$/)
 
-    expect(unexpectedErrors(browser.errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
+    expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 })

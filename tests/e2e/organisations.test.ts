@@ -1,23 +1,11 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import {
-  openBrowser,
-  screenshot,
-  signIn,
-  unexpectedErrors,
-  waitForTable,
-  type BrowserSession,
-} from '../helpers/browser'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, signIn, unexpectedErrors, waitForTable, useBrowser } from '../helpers/browser'
 
-let browser: BrowserSession
-
-beforeAll(async () => {
-  browser = await openBrowser()
-})
-afterAll(() => browser.close())
+const browser = useBrowser()
 
 describe('an administrator keeping client organisations', () => {
   it('adds one, is told what is missing, and deactivates it', async () => {
-    const page = browser.page
+    const page = browser().page
     const base = inject('baseUrl')
     const name = `Brackwater Pumps ${Date.now()}`
     await signIn(page, base, 'admin@demo.test', inject('demoPassword'))
@@ -48,6 +36,6 @@ describe('an administrator keeping client organisations', () => {
     await waitForTable(page)
     await screenshot(page, 'organisations')
 
-    expect(unexpectedErrors(browser.errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
+    expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 })

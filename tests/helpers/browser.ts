@@ -2,6 +2,7 @@ import { mkdirSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { afterAll, beforeAll } from 'vitest'
 
 export const SCREENSHOT_DIR = resolve(import.meta.dirname, '../e2e/screenshots')
 
@@ -53,7 +54,8 @@ export async function openBrowser(): Promise<BrowserSession> {
 export async function screenshot(page: Page, name: string): Promise<string> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true })
   const path = join(SCREENSHOT_DIR, `${name}.png`)
-  await page.screenshot({ path, fullPage: true })
+  // finish enter transitions (messages, dialogs) so the picture shows what the person ends up seeing
+  await page.screenshot({ path, fullPage: true, animations: 'disabled' })
   return path
 }
 
@@ -94,4 +96,17 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
 /** Waits until no table on the page shows its loading overlay, so a screenshot shows the rows. */
 export async function waitForTable(page: Page): Promise<void> {
   await page.locator('.p-datatable-mask').waitFor({ state: 'detached' })
+}
+
+/** One browser for the test file: opened before its tests, closed after; call it for the session. */
+export function useBrowser(): () => BrowserSession {
+  let session: BrowserSession | undefined
+  beforeAll(async () => {
+    session = await openBrowser()
+  })
+  afterAll(() => session?.close())
+  return () => {
+    if (!session) throw new Error('the browser opens in beforeAll')
+    return session
+  }
 }

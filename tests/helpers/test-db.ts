@@ -1,4 +1,5 @@
 import { createDb, type Db } from '../../server/db/knex'
+import { listTables } from '../../server/db/migrations'
 
 export function testDatabaseUrl(
   name: 'TEST_DATABASE_URL' | 'E2E_DATABASE_URL' = 'TEST_DATABASE_URL',
@@ -14,10 +15,7 @@ export function createTestDb(): Db {
 
 /** Empties every table but the migration bookkeeping, so each test file starts from nothing. */
 export async function resetDatabase(db: Db): Promise<void> {
-  const [rows] = (await db.raw('SHOW TABLES')) as [Record<string, string>[]]
-  const tables = rows
-    .map((row) => Object.values(row)[0])
-    .filter((name): name is string => !!name && !name.startsWith('knex_migrations'))
+  const tables = (await listTables(db)).filter((name) => !name.startsWith('knex_migrations'))
   await db.transaction(async (trx) => {
     await trx.raw('SET FOREIGN_KEY_CHECKS = 0')
     for (const table of tables) await trx.raw(`TRUNCATE TABLE \`${table}\``)

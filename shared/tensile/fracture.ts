@@ -1,6 +1,6 @@
 /*
- * Fracture criteria as the issue states them: a drop between consecutive samples of more than
- * half of Fm, or force below a tenth of Fm (common practice for machine records).
+ * Fracture criteria (our rule, common practice for machine records): a drop between consecutive samples of more than
+ * half of Fm, or force below a tenth of Fm.
  */
 const SUDDEN_DROP_FRACTION = 0.5
 const RESIDUAL_FRACTION = 0.1

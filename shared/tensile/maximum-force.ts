@@ -16,7 +16,7 @@ export function peakIndex(stress: Float64Array): number {
 /**
  * Maximum force Fm (ISO 6892-1: highest force during the test after the end of yielding; for
  * Rm = Fm/S0 the stress maximum is the same point). When the top is flat — consecutive samples
- * at exactly the maximum — the strain is that of the middle of the plateau, as the issue asks.
+ * at exactly the maximum — the strain is that of the middle of the plateau (our rule).
  */
 export function maximumForce(strain: Float64Array, stress: Float64Array): MaximumForcePoint {
   const index = peakIndex(stress)

@@ -10,7 +10,7 @@ export interface RoundingSettings {
 /*
  * ISO 6892-1 reporting (rounding clause, recalled from memory, not read from the standard):
  * strengths to 1 MPa, yield-point extension to 0.1 %, other elongations to 0.5 %; reduction of
- * area to 1 % as the issue asks. The modulus to 1 GPa is common practice.
+ * area to 1 % (our default). The modulus to 1 GPa is common practice.
  */
 export const ISO_6892_ROUNDING: Readonly<RoundingSettings> = {
   strengthMPa: 1,

@@ -11,7 +11,7 @@ export interface HardeningFit {
 const MINIMUM_PAIRS = 5
 
 /**
- * Default range (the issue's rule, after ASTM E646 practice): 10 % to the strain at maximum
+ * Default range (our rule, after ASTM E646 practice): 10 % to the strain at maximum
  * force when Ag exceeds 12 %, else from 2 % or the end of yield-point elongation, whichever is
  * later, to the strain at maximum force. Engineering strain, percent.
  */

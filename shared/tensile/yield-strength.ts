@@ -1,7 +1,7 @@
 import { firstCrossing } from './crossing'
 import { plasticStrainAt } from './toe'
 
-/** Plastic strain at the end of proportionality (PRODUCT: ε − σ/E beyond 0.01 %). */
+/** Plastic strain at the end of proportionality (ε − σ/E beyond 0.01 %, common practice). */
 export const PROPORTIONAL_LIMIT_PLASTIC_STRAIN = 1e-4
 
 /**

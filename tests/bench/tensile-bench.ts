@@ -8,7 +8,7 @@ import { PLAIN_FORMAT, writeRecord } from '../helpers/tensile/dialects'
 import { STRUCTURAL_STEEL } from '../helpers/tensile/specimens'
 
 /*
- * Benchmark for issue 5: import and analysis of 10k, 100k and 1M-point records against a bare
+ * Benchmark: import and analysis of 10k, 100k and 1M-point records against a bare
  * baseline (read the file, split, convert every number). Medians of 5 runs; the peak resident
  * memory of the process after each size. A benchmark prints figures; it asserts nothing.
  */

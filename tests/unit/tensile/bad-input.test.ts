@@ -25,7 +25,7 @@ function replaceCell(line: string, position: number, value: string): string {
   return cells.join(',')
 }
 
-// Each case of issue 4's list of bad files: exit status 2, one line on stderr naming the
+// Each kind of bad file the importer refuses: exit status 2, one line on stderr naming the
 // problem, nothing on stdout, no stack trace.
 const CASES: [string, string[], RegExp][] = [
   ['an empty file', [file('empty.csv', '')], /empty/],

@@ -31,7 +31,7 @@ describe('unit conversions follow their exact definitions (NIST SP 811)', () => 
   it('reads strain units as fractions', () => {
     expect(unitFactor('%', 'strain')).toBe(0.01)
     expect(unitFactor('mm/mm', 'strain')).toBe(1)
-    expect(unitFactor('', 'strain')).toBe(1) // an empty unit cell means dimensionless (issue 4)
+    expect(unitFactor('', 'strain')).toBe(1) // an empty unit cell means dimensionless
   })
 })
 

@@ -1,169 +1,89 @@
 import type { Knex } from 'knex'
-import type { CaseCreate } from '../shared/schemas/cases'
-import type { Role } from '../shared/schemas/roles'
-import type { CaseState } from '../shared/workflow/case-states'
+import type { Actor } from '../shared/access/policy'
+import { CaseCreate } from '../shared/schemas/cases'
+import { findTransition, type CaseState } from '../shared/workflow/case-states'
 import { hashPassword } from '../server/auth/passwords'
 import { createCaseService } from '../server/services/cases'
+import { CASES, DEMO_LAB_NAME, ORGANISATIONS, PEOPLE, type DemoCase } from './demo-scenario'
 
-// An invented scenario: the lab, its clients, people and parts are all made up.
-export const DEMO_LAB_NAME = 'Kestrelmoor Materials Laboratory'
-
-const ORGANISATIONS = [
-  {
-    key: 'cranes',
-    name: 'Tallowmere Cranes Ltd',
-    contactName: 'Dale Forsyth',
-    contactEmail: 'client@demo.test',
-  },
-  {
-    key: 'fittings',
-    name: 'Quillon Process Fittings',
-    contactName: 'Yuki Brennagh',
-    contactEmail: 'client2@demo.test',
-  },
-] as const
-
-type OrganisationKey = (typeof ORGANISATIONS)[number]['key']
-
-const PEOPLE: { email: string; name: string; roles: Role[]; organisation?: OrganisationKey }[] = [
-  { email: 'admin@demo.test', name: 'Ines Haldane', roles: ['admin'] },
-  { email: 'investigator@demo.test', name: 'Tomas Reyke', roles: ['investigator'] },
-  { email: 'lab@demo.test', name: 'Priya Olund', roles: ['lab'] },
-  { email: 'reviewer@demo.test', name: 'Maren Costa', roles: ['reviewer', 'investigator'] },
-  { email: 'client@demo.test', name: 'Dale Forsyth', roles: ['client'], organisation: 'cranes' },
-  {
-    email: 'client2@demo.test',
-    name: 'Yuki Brennagh',
-    roles: ['client'],
-    organisation: 'fittings',
-  },
-]
-
-type DemoCase = Omit<CaseCreate, 'organisationId' | 'leadInvestigatorId' | 'priority'> & {
-  organisation: OrganisationKey
-  status: CaseState
-  priority: CaseCreate['priority']
-}
-
-const CASES: DemoCase[] = [
-  {
-    organisation: 'cranes',
-    title: 'Fractured hook block pin, gantry crane 3',
-    component: 'Hook block pin',
-    partNumber: 'TC-HB-2207',
-    material: 'AISI 4140, quenched and tempered',
-    priority: 'high',
-    status: 'examination',
-    failureDate: '2026-10-14',
-    dueDate: '2026-12-18',
-  },
-  {
-    organisation: 'cranes',
-    title: 'Cracked rope sheave on luffing hoist',
-    component: 'Rope sheave',
-    partNumber: 'TC-SH-0415',
-    material: 'EN-GJS-500-7',
-    priority: 'normal',
-    status: 'drafting',
-    failureDate: '2026-09-02',
-    dueDate: '2026-12-05',
-  },
-  {
-    organisation: 'cranes',
-    title: 'Sheared boom foot bolt',
-    component: 'Boom foot bolt M30',
-    partNumber: 'TC-BF-3001',
-    material: 'ASTM A193 Grade B7',
-    priority: 'urgent',
-    status: 'released',
-    failureDate: '2026-06-21',
-    dueDate: '2026-08-01',
-  },
-  {
-    organisation: 'cranes',
-    title: 'Bent outrigger beam after set-down',
-    component: 'Outrigger beam',
-    partNumber: null,
-    material: 'EN 10025-2 S355J2',
-    priority: 'low',
-    status: 'intake',
-    failureDate: '2026-11-20',
-    dueDate: '2027-01-22',
-  },
-  {
-    organisation: 'fittings',
-    title: 'Cracked compression fitting on chloride line',
-    component: 'Compression fitting 1/2 in',
-    partNumber: 'QF-CF-316-08',
-    material: 'ASTM A240 Type 316L',
-    priority: 'high',
-    status: 'in_review',
-    failureDate: '2026-08-30',
-    dueDate: '2026-12-12',
-  },
-  {
-    organisation: 'fittings',
-    title: 'Leak at heat-exchanger nozzle weld',
-    component: 'Nozzle weld N2',
-    partNumber: null,
-    material: 'ASTM A240 Type 304',
-    priority: 'normal',
-    status: 'intake',
-    failureDate: '2026-11-25',
-    dueDate: '2027-02-10',
-  },
-  {
-    organisation: 'fittings',
-    title: 'Transfer pump shaft fracture',
-    component: 'Pump shaft',
-    partNumber: 'QF-PS-42-1180',
-    material: '42CrMo4, quenched and tempered',
-    priority: 'normal',
-    status: 'approved',
-    failureDate: '2026-07-11',
-    dueDate: '2026-11-30',
-  },
-]
-
-async function seedPeople(db: Knex, options: DemoOptions, organisationIds: Map<string, number>) {
-  const ids = new Map<string, number>()
-  for (const person of PEOPLE) {
-    const [id] = (await db('users').insert({
-      email: person.email,
-      name: person.name,
-      passwordHash: await hashPassword(options.password, options.passwordCost),
-      mustChangePassword: false,
-      organisationId: person.organisation ? organisationIds.get(person.organisation) : null,
-    })) as number[]
-    await db('user_roles').insert(person.roles.map((role) => ({ userId: id, role })))
-    ids.set(person.email, id as number)
-  }
-  return ids
-}
-
-async function seedCases(
-  db: Knex,
-  organisationIds: Map<string, number>,
-  people: Map<string, number>,
-) {
-  const cases = createCaseService(db)
-  const adminId = people.get('admin@demo.test') as number
-  for (const { organisation, status, ...fields } of CASES) {
-    const created = await cases.create(
-      {
-        ...fields,
-        organisationId: organisationIds.get(organisation) as number,
-        leadInvestigatorId: people.get('investigator@demo.test') as number,
-      },
-      adminId,
-    )
-    await db('cases').where({ id: created.id }).update({ status })
-  }
-}
+export { DEMO_LAB_NAME } from './demo-scenario'
 
 export interface DemoOptions {
   password: string
   passwordCost?: number
+  /** the day the scenario is seeded; its dates are relative to it */
+  today?: Date
+}
+
+const WAY_TO: Record<DemoCase['status'], CaseState[]> = {
+  intake: [],
+  examination: ['examination'],
+  drafting: ['examination', 'drafting'],
+}
+
+function daysFrom(today: Date, days: number): string {
+  return new Date(today.getTime() + days * 86_400_000).toISOString().slice(0, 10)
+}
+
+async function seedPeople(trx: Knex, options: DemoOptions, organisationIds: Map<string, number>) {
+  const actors = new Map<string, Actor>()
+  const passwordHash = await hashPassword(options.password, options.passwordCost)
+  for (const person of PEOPLE) {
+    const organisationId = person.organisation ? organisationIds.get(person.organisation)! : null
+    const [id] = (await trx('users').insert({
+      email: person.email,
+      name: person.name,
+      passwordHash,
+      mustChangePassword: false,
+      organisationId,
+    })) as number[]
+    await trx('user_roles').insert(person.roles.map((role) => ({ userId: id, role })))
+    actors.set(person.key, { id: id as number, roles: person.roles, organisationId })
+  }
+  return actors
+}
+
+function caseInput(
+  demo: DemoCase,
+  today: Date,
+  organisationIds: Map<string, number>,
+  actors: Map<string, Actor>,
+): CaseCreate {
+  const { organisation, lead, coInvestigators, lab, reviewer, status: _status, ...rest } = demo
+  const { failedDaysAgo, receivedDaysAgo, dueInDays, ...fields } = rest
+  const idOf = (key: string | undefined) => (key ? actors.get(key)!.id : null)
+  return CaseCreate.parse({
+    ...fields,
+    organisationId: organisationIds.get(organisation),
+    leadInvestigatorId: idOf(lead),
+    coInvestigatorIds: (coInvestigators ?? []).map((key) => idOf(key)),
+    labTechnicianId: idOf(lab),
+    reviewerId: idOf(reviewer),
+    failureDate: daysFrom(today, -failedDaysAgo),
+    receivedOn: daysFrom(today, -receivedDaysAgo),
+    dueDate: daysFrom(today, dueInDays),
+  })
+}
+
+/** Opens each demo case as the administrator and moves it on as its lead, step by step. */
+async function seedCases(
+  trx: Knex,
+  today: Date,
+  organisationIds: Map<string, number>,
+  actors: Map<string, Actor>,
+) {
+  const cases = createCaseService({ clock: () => today })
+  const admin = actors.get('admin')!
+  for (const demo of CASES) {
+    const input = caseInput(demo, today, organisationIds, actors)
+    const created = await cases.create({ actor: admin, db: trx }, input)
+    const lead = actors.get(demo.lead)!
+    let status = created.status
+    for (const next of WAY_TO[demo.status]) {
+      if (!findTransition(status, next)) throw new Error(`demo: no way from ${status} to ${next}`)
+      status = (await cases.changeStatus({ actor: lead, db: trx }, created.id, next)).status
+    }
+  }
 }
 
 export function demoAccountsNote(password: string): string {
@@ -175,14 +95,15 @@ export function demoAccountsNote(password: string): string {
 export async function seedDemoIfEmpty(db: Knex, options: DemoOptions): Promise<boolean> {
   const [{ count }] = (await db('users').count({ count: '*' })) as [{ count: number }]
   if (Number(count) > 0) return false
+  const today = options.today ?? new Date()
   await db.transaction(async (trx) => {
     const organisationIds = new Map<string, number>()
     for (const { key, ...organisation } of ORGANISATIONS) {
       const [id] = (await trx('organisations').insert(organisation)) as number[]
       organisationIds.set(key, id as number)
     }
-    const people = await seedPeople(trx, options, organisationIds)
-    await seedCases(trx, organisationIds, people)
+    const actors = await seedPeople(trx, options, organisationIds)
+    await seedCases(trx, today, organisationIds, actors)
   })
   return true
 }

@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs'
-import { resolve } from 'node:path'
+import { resolve, sep } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import express, { type Express } from 'express'
 import helmet from 'helmet'
@@ -19,10 +19,14 @@ import { peopleRoutes, staffRoutes } from './routes/people'
 import { createCaseService } from './services/cases'
 import { createOrganisationService } from './services/organisations'
 import { createPeopleService } from './services/people'
+import type { FileStorage } from './storage/file-storage'
+import { createLocalStorage } from './storage/local-storage'
 
 export interface AppDeps {
   db: Db
   config: Config
+  /** where uploaded files go; by default the local folder UPLOADS_DIR */
+  storage?: FileStorage
   /** folder of the built client; served when present */
   clientDir?: string
   log?: (error: unknown) => void
@@ -77,15 +81,27 @@ function apiRouter(deps: AppDeps, log: (error: unknown) => void) {
   api.use('/people', ...signedIn, peopleRoutes(people))
   api.use('/staff', ...signedIn, staffRoutes(people))
   api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
-  api.use('/cases', ...signedIn, caseRoutes(createCaseService(db)))
+  api.use('/cases', ...signedIn, caseRoutes(db, createCaseService()))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api
 }
 
+/** Uploads are served only through the API's checks: never from a folder the web server serves. */
+function checkUploadsFolder(uploadsDir: string, clientDir: string): void {
+  const uploads = resolve(uploadsDir)
+  const inside = (folder: string) => uploads === folder || uploads.startsWith(`${folder}${sep}`)
+  if (inside(resolve(clientDir)) || inside(resolve(clientDir, '../public'))) {
+    throw new Error(`UPLOADS_DIR (${uploads}) must not be inside a publicly served folder`)
+  }
+}
+
 /** Builds the whole HTTP application without listening, so tests can drive it with supertest. */
 export function createApp(deps: AppDeps): Express {
   const { config } = deps
+  const clientDir = deps.clientDir ?? defaultClientDir
+  checkUploadsFolder(config.uploadsDir, clientDir)
+  const storage = deps.storage ?? createLocalStorage(config.uploadsDir)
   const log = deps.log ?? ((error: unknown) => console.error(error))
   const app = express()
   app.disable('x-powered-by')
@@ -93,9 +109,9 @@ export function createApp(deps: AppDeps): Express {
   app.use(securityHeaders(config))
   if (config.logRequests) app.use(morgan('short'))
 
-  app.use('/api', apiRouter(deps, log))
+  app.use('/api', apiRouter({ ...deps, storage }, log))
 
-  serveClient(app, deps.clientDir ?? defaultClientDir)
+  serveClient(app, clientDir)
   app.use(errorHandler(log))
   return app
 }

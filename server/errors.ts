@@ -1,47 +1,52 @@
+import { ERROR_STATUS, type ErrorCode } from '../shared/api/errors'
+
 /** Errors a service throws on purpose; the error middleware turns them into JSON answers. */
 export class AppError extends Error {
+  readonly status: number
+
   constructor(
-    readonly status: number,
-    readonly code: string,
+    readonly code: ErrorCode,
     message: string,
     readonly details?: unknown,
   ) {
     super(message)
+    this.status = ERROR_STATUS[code]
   }
 }
 
 export class ValidationError extends AppError {
   constructor(message: string, details?: unknown) {
-    super(400, 'validation_failed', message, details)
+    super('validation_failed', message, details)
   }
 }
 
 export class Unauthorized extends AppError {
   constructor(message = 'Please sign in.') {
-    super(401, 'unauthorized', message)
+    super('unauthenticated', message)
   }
 }
 
 export class Forbidden extends AppError {
   constructor(message = 'You are not allowed to do that.') {
-    super(403, 'forbidden', message)
+    super('forbidden', message)
   }
 }
 
 export class NotFound extends AppError {
   constructor(message = 'Not found.') {
-    super(404, 'not_found', message)
+    super('not_found', message)
   }
 }
 
+/** A duplicate of something that must be unique. */
 export class Conflict extends AppError {
   constructor(message: string, details?: unknown) {
-    super(409, 'conflict', message, details)
+    super('conflict', message, details)
   }
 }
 
 export class TooManyRequests extends AppError {
   constructor(message = 'Too many attempts. Please wait and try again.') {
-    super(429, 'too_many_requests', message)
+    super('too_many_requests', message)
   }
 }

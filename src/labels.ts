@@ -1,15 +1,8 @@
-import type { Priority } from '../shared/schemas/cases'
-import type { CaseState } from '../shared/workflow/case-states'
+import type { Turnaround } from '../shared/schemas/case-vocabulary'
+import type { CaseState, ClientStage } from '../shared/workflow/case-states'
 
-// Words shown to people for coded values, kept in one place so every screen says the same.
-// Case states and roles have their labels beside their definitions in shared/.
-
-export const PRIORITY_LABELS: Record<Priority, string> = {
-  low: 'Low',
-  normal: 'Normal',
-  high: 'High',
-  urgent: 'Urgent',
-}
+// Words and colours shown for coded values, kept in one place so every screen says the same.
+// Labels of states, roles and the case vocabulary sit beside their definitions in shared/.
 
 type TagSeverity = 'secondary' | 'info' | 'success' | 'warn' | 'danger' | 'contrast'
 
@@ -19,17 +12,24 @@ export const CASE_STATE_SEVERITIES: Record<CaseState, TagSeverity> = {
   examination: 'info',
   drafting: 'info',
   in_review: 'warn',
-  revisions_requested: 'danger',
+  revisions_requested: 'warn',
   approved: 'success',
-  released: 'success',
+  issued: 'success',
   closed: 'contrast',
 }
 
-export const PRIORITY_SEVERITIES: Record<Priority, TagSeverity | undefined> = {
-  low: undefined,
-  normal: undefined,
-  high: 'warn',
-  urgent: 'danger',
+export const CLIENT_STAGE_SEVERITIES: Record<ClientStage, TagSeverity> = {
+  received: 'secondary',
+  under_examination: 'info',
+  report_in_preparation: 'info',
+  report_issued: 'success',
+  closed: 'contrast',
+}
+
+export const TURNAROUND_SEVERITIES: Record<Turnaround, TagSeverity | undefined> = {
+  standard: undefined,
+  expedited: 'info',
+  rush: 'warn',
 }
 
 export const NOT_GIVEN = '—'

@@ -17,7 +17,6 @@ export const csrfProtection: RequestHandler = (req, _res, next) => {
   }
   next(
     new AppError(
-      403,
       'csrf_invalid',
       'The security token is missing or out of date. Reload and try again.',
     ),

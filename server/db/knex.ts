@@ -24,7 +24,7 @@ export function createDb(url: string, poolOptions: Knex.PoolConfig = { min: 0, m
   }
   return knex({
     client: 'mysql2',
-    connection: { uri: url, charset: 'utf8mb4', timezone: 'Z', dateStrings: false } as never,
+    connection: { uri: url, charset: 'utf8mb4', timezone: 'Z', dateStrings: ['DATE'] } as never,
     pool,
     wrapIdentifier: (value, wrap) => wrap(value === '*' ? value : toSnake(value)),
     postProcessResponse: camelizeRow,

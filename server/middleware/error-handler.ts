@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
-import { AppError, NotFound } from '../errors'
+import { AppError, NotFound, ValidationError } from '../errors'
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new NotFound(`No API route for ${req.method} ${req.baseUrl}${req.path}.`))
@@ -9,7 +9,6 @@ interface HttpError {
   status?: number
   statusCode?: number
   type?: string
-  expose?: boolean
 }
 
 /** body-parser and friends throw errors with an HTTP status; keep their meaning, not their text. */
@@ -17,12 +16,12 @@ function fromHttpError(error: HttpError): AppError | undefined {
   const status = error.status ?? error.statusCode
   if (!status || status < 400 || status >= 500) return undefined
   if (error.type === 'entity.too.large') {
-    return new AppError(413, 'payload_too_large', 'The request body is too large.')
+    return new AppError('payload_too_large', 'The request body is too large.')
   }
   if (error.type === 'entity.parse.failed') {
-    return new AppError(400, 'malformed_json', 'The request body is not valid JSON.')
+    return new ValidationError('The request body is not valid JSON.')
   }
-  return new AppError(status, 'bad_request', 'The request could not be processed.')
+  return new ValidationError('The request could not be processed.')
 }
 
 export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {

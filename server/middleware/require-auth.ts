@@ -1,6 +1,6 @@
 import type { Request, RequestHandler } from 'express'
+import { can, type Action, type CaseRef } from '../../shared/access/policy'
 import { AppError, Forbidden, Unauthorized } from '../errors'
-import { can, type Action, type CaseRef } from '../auth/policy'
 
 /** The signed-in person, or 401. */
 export function currentUser(req: Request): Express.User {
@@ -16,7 +16,7 @@ export const requireSignedIn: RequestHandler = (req, _res, next) => {
 /** Someone still holding a one-time password may only change it (and sign out). */
 export const requirePasswordSet: RequestHandler = (req, _res, next) => {
   if (currentUser(req).mustChangePassword) {
-    throw new AppError(403, 'password_change_required', 'Set your own password first.')
+    throw new AppError('password_change_required', 'Set your own password first.')
   }
   next()
 }

@@ -1,20 +1,21 @@
 import type { RequestHandler } from 'express'
-import type { z } from 'zod'
+import { z } from 'zod/mini'
+import type { FieldIssue } from '../../shared/api/errors'
 import { ValidationError } from '../errors'
 
 type Source = 'body' | 'query' | 'params'
 
 /** Field-by-field messages the client can show next to the inputs. */
-export function describeIssues(error: z.ZodError): { path: string; message: string }[] {
+export function describeIssues(error: z.core.$ZodError): FieldIssue[] {
   return error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }))
 }
 
-export function parseOrThrow<T extends z.ZodType>(
+export function parseOrThrow<T extends z.core.$ZodType>(
   schema: T,
   value: unknown,
   what: string,
-): z.infer<T> {
-  const result = schema.safeParse(value)
+): z.output<T> {
+  const result = z.safeParse(schema, value)
   if (!result.success) {
     const details = describeIssues(result.error)
     const first = details[0]
@@ -25,7 +26,7 @@ export function parseOrThrow<T extends z.ZodType>(
 }
 
 /** Validates one part of the request and stores the parsed value in res.locals[source]. */
-export function validate<T extends z.ZodType>(source: Source, schema: T): RequestHandler {
+export function validate<T extends z.core.$ZodType>(source: Source, schema: T): RequestHandler {
   const what = source === 'body' ? 'request body' : source === 'query' ? 'query' : 'URL'
   return (req, res, next) => {
     res.locals[source] = parseOrThrow(schema, req[source], what)

@@ -15,7 +15,7 @@ function authenticate(passport: AppPassport, req: Request, res: Response, next: 
   req.body = res.locals.body
   passport.authenticate('local', (error: unknown, user: Express.User | false) => {
     if (error) return next(error)
-    if (!user) return next(new AppError(401, 'invalid_credentials', GENERIC_FAILURE))
+    if (!user) return next(new AppError('invalid_credentials', GENERIC_FAILURE))
     // passport regenerates the session id here, which also retires the old CSRF token
     req.logIn(user, (loginError) => {
       if (loginError) return next(loginError)

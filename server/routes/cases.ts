@@ -1,57 +1,72 @@
-import { Router } from 'express'
-import { CaseCreate, CaseListQuery, CaseStatusChange } from '../../shared/schemas/cases'
-import { IdParams } from '../../shared/schemas/common'
-import { nextStates } from '../../shared/workflow/case-states'
-import { can, organisationScope } from '../auth/policy'
-import { authorize, currentUser, requirePermission } from '../middleware/require-auth'
+import { Router, type Request, type Response } from 'express'
+import type { Knex } from 'knex'
+import { ActivityQuery } from '../../shared/schemas/activity'
+import { CaseCreate, CaseListQuery, CaseStatusChange, CaseUpdate } from '../../shared/schemas/cases'
+import { allowOnCase, caseFileOf, caseLoader } from '../middleware/case-loader'
+import { currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
+import { listActivity } from '../services/activity'
 import type { CaseService } from '../services/cases'
-import type { CaseDetail } from '../../shared/schemas/cases'
+import type { ServiceContext } from '../services/context'
 
-/** The case plus the plain status changes this person may make now. */
-function withNextStates(user: Express.User, detail: CaseDetail) {
-  const allowed = can(user, 'case.changeStatus', detail)
-    ? nextStates(detail.status, user.roles)
-    : []
-  return { ...detail, allowedNextStates: allowed }
+const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
+
+/** Routes of one case, behind the case loader. */
+function oneCaseRoutes(db: Knex, cases: CaseService): Router {
+  const router = Router({ mergeParams: true })
+  const answer = async (req: Request, res: Response, status = 200) => {
+    const ctx = contextOf(req, db)
+    res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
+  }
+
+  router.get('/', (req, res) => answer(req, res))
+  router.patch('/', allowOnCase('case.edit'), validate('body', CaseUpdate), async (req, res) => {
+    const ctx = contextOf(req, db)
+    const change = res.locals.body as CaseUpdate
+    res.locals.caseFile = await cases.update(ctx, caseFileOf(res).id, change)
+    await answer(req, res)
+  })
+  router.post(
+    '/status',
+    allowOnCase('case.changeStatus'),
+    validate('body', CaseStatusChange),
+    async (req, res) => {
+      const { status } = res.locals.body as CaseStatusChange
+      res.locals.caseFile = await cases.changeStatus(contextOf(req, db), caseFileOf(res).id, status)
+      await answer(req, res)
+    },
+  )
+  router.get(
+    '/activity',
+    allowOnCase('case.viewActivity'),
+    validate('query', ActivityQuery),
+    async (_req, res) => {
+      res.json(await listActivity(db, caseFileOf(res).id, res.locals.query as ActivityQuery))
+    },
+  )
+  return router
 }
 
-export function caseRoutes(cases: CaseService): Router {
+export function caseRoutes(db: Knex, cases: CaseService): Router {
   const router = Router()
-  router.get('/', validate('query', CaseListQuery), async (req, res) => {
-    const user = authorize(req, 'cases.list')
-    res.json(await cases.list(res.locals.query as CaseListQuery, organisationScope(user)))
-  })
+  router.get(
+    '/',
+    requirePermission('cases.list'),
+    validate('query', CaseListQuery),
+    async (req, res) => {
+      res.json(await cases.list(contextOf(req, db), res.locals.query as CaseListQuery))
+    },
+  )
   router.post(
     '/',
     requirePermission('case.create'),
     validate('body', CaseCreate),
     async (req, res) => {
-      const user = currentUser(req)
-      const created = await cases.create(res.locals.body as CaseCreate, user.id)
-      res.status(201).json({ data: withNextStates(user, created) })
+      const ctx = contextOf(req, db)
+      const created = await cases.create(ctx, res.locals.body as CaseCreate)
+      res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.get('/:id', validate('params', IdParams), async (req, res) => {
-    const user = authorize(req, 'cases.list')
-    const { id } = res.locals.params as IdParams
-    const detail = await cases.get(id, organisationScope(user))
-    authorize(req, 'case.view', detail)
-    res.json({ data: withNextStates(user, detail) })
-  })
-  router.post(
-    '/:id/status',
-    requirePermission('case.changeStatus'),
-    validate('params', IdParams),
-    validate('body', CaseStatusChange),
-    async (req, res) => {
-      const user = currentUser(req)
-      const { id } = res.locals.params as IdParams
-      const detail = await cases.get(id, organisationScope(user))
-      authorize(req, 'case.changeStatus', detail)
-      const { status } = res.locals.body as CaseStatusChange
-      res.json({ data: withNextStates(user, await cases.changeStatus(id, status, user)) })
-    },
-  )
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases))
   return router
 }

@@ -1,7 +1,7 @@
 import { Router } from 'express'
 import { IdParams } from '../../shared/schemas/common'
 import { OrganisationCreate, OrganisationUpdate } from '../../shared/schemas/organisations'
-import { organisationScope } from '../auth/policy'
+import { organisationScope } from '../../shared/access/policy'
 import { authorize, currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { OrganisationService } from '../services/organisations'

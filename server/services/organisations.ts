@@ -45,7 +45,7 @@ export function createOrganisationService(db: Knex) {
           const [newId] = (await trx('organisations').insert(input)) as number[]
           await recordAudit(trx, {
             actorId,
-            action: 'organisation.created',
+            kind: 'organisation.created',
             details: { organisationId: newId },
           })
           return newId as number
@@ -63,7 +63,7 @@ export function createOrganisationService(db: Knex) {
           await trx('organisations').where({ id }).update(input)
           await recordAudit(trx, {
             actorId,
-            action: 'organisation.updated',
+            kind: 'organisation.updated',
             details: { organisationId: id },
           })
         }),

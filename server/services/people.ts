@@ -111,7 +111,7 @@ export function createPeopleService(db: Knex, options: { passwordCost: number })
           await trx('user_roles').insert(input.roles.map((role) => ({ userId: newId, role })))
           await recordAudit(trx, {
             actorId,
-            action: 'person.created',
+            kind: 'person.created',
             details: { personId: newId },
           })
           return newId as number
@@ -135,7 +135,7 @@ export function createPeopleService(db: Knex, options: { passwordCost: number })
           await trx('user_roles').where({ userId: id }).delete()
           await trx('user_roles').insert(roles.map((role) => ({ userId: id, role })))
           if (!input.active) await endSessionsOf(trx, id)
-          await recordAudit(trx, { actorId, action: 'person.updated', details: { personId: id } })
+          await recordAudit(trx, { actorId, kind: 'person.updated', details: { personId: id } })
         }),
       DUPLICATE_EMAIL,
     )
@@ -151,7 +151,7 @@ export function createPeopleService(db: Knex, options: { passwordCost: number })
       await endSessionsOf(trx, id)
       await recordAudit(trx, {
         actorId,
-        action: 'person.password_reset',
+        kind: 'person.password_reset',
         details: { personId: id },
       })
     })
@@ -173,7 +173,7 @@ export function createPeopleService(db: Knex, options: { passwordCost: number })
     const passwordHash = await hashPassword(next, options.passwordCost)
     await db.transaction(async (trx) => {
       await trx('users').where({ id }).update({ passwordHash, mustChangePassword: false })
-      await recordAudit(trx, { actorId: id, action: 'person.password_changed' })
+      await recordAudit(trx, { actorId: id, kind: 'person.password_changed' })
     })
     return get(id)
   }

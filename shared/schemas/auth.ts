@@ -1,30 +1,37 @@
-import { z } from 'zod'
+import { z } from 'zod/mini'
 import type { Role } from './roles'
 
 export const PASSWORD_MIN_LENGTH = 12
 
-export const Email = z
-  .email({ error: 'Enter a valid e-mail address.' })
-  .trim()
-  .toLowerCase()
-  .max(191)
+const EMAIL_MESSAGE = 'Enter a valid e-mail address.'
+
+/** An e-mail address, trimmed and lower-cased before it is checked. */
+export const Email = z.pipe(
+  z.string({ error: EMAIL_MESSAGE }).check(z.trim(), z.toLowerCase()),
+  z.email({ error: EMAIL_MESSAGE }).check(z.maxLength(191, EMAIL_MESSAGE)),
+)
 
 export const LoginRequest = z.strictObject({
   email: Email,
-  password: z.string({ error: 'Password is required.' }).min(1, 'Password is required.').max(1024),
+  password: z
+    .string({ error: 'Password is required.' })
+    .check(z.minLength(1, 'Password is required.'), z.maxLength(1024)),
 })
-export type LoginRequest = z.infer<typeof LoginRequest>
+export type LoginRequest = z.output<typeof LoginRequest>
 
-export const NewPassword = z
-  .string({ error: 'Password is required.' })
-  .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-  .max(1024, 'Use at most 1024 characters.')
+export const NewPassword = z.string({ error: 'Password is required.' }).check(
+  z.minLength(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`),
+  z.maxLength(1024, 'Use at most 1024 characters.'),
+  z.refine((text) => text.trim() !== '', 'A password cannot be only spaces.'),
+)
 
 export const ChangePasswordRequest = z.strictObject({
-  currentPassword: z.string().min(1, 'Enter the current password.').max(1024),
+  currentPassword: z
+    .string()
+    .check(z.minLength(1, 'Enter the current password.'), z.maxLength(1024)),
   newPassword: NewPassword,
 })
-export type ChangePasswordRequest = z.infer<typeof ChangePasswordRequest>
+export type ChangePasswordRequest = z.output<typeof ChangePasswordRequest>
 
 export interface SessionUser {
   id: number

@@ -1,18 +1,21 @@
-import { z } from 'zod'
+import { z } from 'zod/mini'
 import { Email } from './auth'
-import { trimmed } from './common'
+import { optionalText, trimmed } from './common'
 
 const organisationFields = {
   name: trimmed(191, 'Name'),
-  contactName: z.string().trim().max(191).nullable().default(null),
-  contactEmail: Email.nullable().default(null),
+  contactName: z._default(optionalText(191, 'Contact name'), null),
+  contactEmail: z._default(z.nullable(Email), null),
 }
 
 export const OrganisationCreate = z.strictObject(organisationFields)
-export type OrganisationCreate = z.infer<typeof OrganisationCreate>
+export type OrganisationCreate = z.output<typeof OrganisationCreate>
 
-export const OrganisationUpdate = z.strictObject({ ...organisationFields, active: z.boolean() })
-export type OrganisationUpdate = z.infer<typeof OrganisationUpdate>
+export const OrganisationUpdate = z.strictObject({
+  ...organisationFields,
+  active: z.boolean({ error: 'Say whether the organisation is active.' }),
+})
+export type OrganisationUpdate = z.output<typeof OrganisationUpdate>
 
 export interface Organisation {
   id: number

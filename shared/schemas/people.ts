@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from 'zod/mini'
 import { Email } from './auth'
 import { idOf, trimmed } from './common'
 import { Role } from './roles'
@@ -6,14 +6,18 @@ import { Role } from './roles'
 const personFields = {
   email: Email,
   name: trimmed(191, 'Name'),
-  roles: z.array(Role).min(1, 'Choose at least one role.').max(5),
-  organisationId: idOf('Choose the client organisation.').nullable().default(null),
+  roles: z.array(Role).check(
+    z.minLength(1, 'Choose at least one role.'),
+    z.maxLength(5),
+    z.refine((roles) => new Set(roles).size === roles.length, 'Choose each role only once.'),
+  ),
+  organisationId: z._default(z.nullable(idOf('Choose the client organisation.')), null),
 }
 
 /** A client belongs to exactly one organisation and holds no staff role; staff belong to none. */
 function checkRoleMix(
   value: { roles: Role[]; organisationId: number | null },
-  ctx: z.RefinementCtx,
+  ctx: z.core.$RefinementCtx<{ roles: Role[]; organisationId: number | null }>,
 ) {
   const isClient = value.roles.includes('client')
   if (isClient && value.roles.length > 1) {
@@ -35,13 +39,13 @@ function checkRoleMix(
   }
 }
 
-export const PersonCreate = z.strictObject(personFields).superRefine(checkRoleMix)
-export type PersonCreate = z.infer<typeof PersonCreate>
+export const PersonCreate = z.strictObject(personFields).check(z.superRefine(checkRoleMix))
+export type PersonCreate = z.output<typeof PersonCreate>
 
 export const PersonUpdate = z
   .strictObject({ ...personFields, active: z.boolean() })
-  .superRefine(checkRoleMix)
-export type PersonUpdate = z.infer<typeof PersonUpdate>
+  .check(z.superRefine(checkRoleMix))
+export type PersonUpdate = z.output<typeof PersonUpdate>
 
 export interface Person {
   id: number

@@ -7,7 +7,7 @@ export const CASE_STATES = [
   'in_review',
   'revisions_requested',
   'approved',
-  'released',
+  'issued',
   'closed',
 ] as const
 export type CaseState = (typeof CASE_STATES)[number]
@@ -19,15 +19,15 @@ export const CASE_STATE_LABELS: Record<CaseState, string> = {
   in_review: 'In review',
   revisions_requested: 'Revisions requested',
   approved: 'Approved',
-  released: 'Released',
+  issued: 'Issued',
   closed: 'Closed',
 }
 
 /**
  * How a transition is made: `direct` ones are a plain status change by the listed roles; the
- * others belong to the review and release actions and are refused as plain status changes.
+ * others belong to the review and issue actions and are refused as plain status changes.
  */
-export type TransitionRoute = 'direct' | 'review' | 'release'
+export type TransitionRoute = 'direct' | 'review' | 'issue'
 
 export interface Transition {
   from: CaseState
@@ -45,9 +45,9 @@ export const CASE_TRANSITIONS: readonly Transition[] = [
   { from: 'in_review', to: 'revisions_requested', roles: ['reviewer'], route: 'review' },
   { from: 'revisions_requested', to: 'in_review', roles: LEADS, route: 'review' },
   { from: 'in_review', to: 'approved', roles: ['reviewer'], route: 'review' },
-  { from: 'approved', to: 'released', roles: LEADS, route: 'release' },
-  { from: 'released', to: 'closed', roles: LEADS, route: 'direct' },
-  { from: 'released', to: 'drafting', roles: LEADS, route: 'direct' },
+  { from: 'approved', to: 'issued', roles: LEADS, route: 'issue' },
+  { from: 'issued', to: 'closed', roles: LEADS, route: 'direct' },
+  { from: 'issued', to: 'drafting', roles: LEADS, route: 'direct' },
 ]
 
 export function findTransition(from: CaseState, to: CaseState): Transition | undefined {
@@ -80,4 +80,42 @@ export function nextStates(from: CaseState, roles: readonly Role[]): CaseState[]
       transition.route === 'direct' &&
       roles.some((role) => transition.roles.includes(role)),
   ).map((transition) => transition.to)
+}
+
+/** What a client is told about a case: plain stages, no internal states. */
+export const CLIENT_STAGES = [
+  'received',
+  'under_examination',
+  'report_in_preparation',
+  'report_issued',
+  'closed',
+] as const
+export type ClientStage = (typeof CLIENT_STAGES)[number]
+
+export const CLIENT_STAGE_LABELS: Record<ClientStage, string> = {
+  received: 'Received',
+  under_examination: 'Under examination',
+  report_in_preparation: 'Report in preparation',
+  report_issued: 'Report issued',
+  closed: 'Closed',
+}
+
+const STAGE_OF_STATE: Record<CaseState, ClientStage> = {
+  intake: 'received',
+  examination: 'under_examination',
+  drafting: 'report_in_preparation',
+  in_review: 'report_in_preparation',
+  revisions_requested: 'report_in_preparation',
+  approved: 'report_in_preparation',
+  issued: 'report_issued',
+  closed: 'closed',
+}
+
+export function clientStageOf(state: CaseState): ClientStage {
+  return STAGE_OF_STATE[state]
+}
+
+/** The internal states a client stage stands for, to filter a client's list by stage. */
+export function statesOfStage(stage: ClientStage): CaseState[] {
+  return CASE_STATES.filter((state) => STAGE_OF_STATE[state] === stage)
 }

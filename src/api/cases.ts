@@ -1,33 +1,46 @@
-import type { CaseCreate, CaseDetail, CaseSummary } from '../../shared/schemas/cases'
-import type { Page } from '../../shared/schemas/common'
-import type { CaseState } from '../../shared/workflow/case-states'
+import type { Page, PageEnvelope } from '../../shared/api/envelope'
+import type { ActivityEntry, ActivityKind } from '../../shared/schemas/activity'
+import type {
+  CaseCreate,
+  CaseDetail,
+  CaseSummary,
+  CaseUpdate,
+  ClientCaseView,
+} from '../../shared/schemas/cases'
+import type { CaseState, ClientStage } from '../../shared/workflow/case-states'
 import { request } from './client'
 
 export interface CaseListFilter {
   page: number
   pageSize: number
   status?: CaseState
+  stage?: ClientStage
   organisationId?: number
   q?: string
 }
 
+/** Staff receive the working summary of each case, clients their plain status lines. */
+export type CaseListItem = CaseSummary | ClientCaseView
+
 export interface CaseListPage {
-  cases: CaseSummary[]
+  cases: CaseListItem[]
   page: Page
 }
 
-/** A case as its page shows it, with the states the signed-in person may move it to. */
-export type CaseWithNextStates = CaseDetail & { allowedNextStates: CaseState[] }
+/** A case as the signed-in person may see it. */
+export type CaseView = CaseDetail | ClientCaseView
+
+export const isCaseDetail = (view: CaseView): view is CaseDetail => 'version' in view
 
 export async function listCases(filter: CaseListFilter): Promise<CaseListPage> {
-  const { data, page } = await request<{ data: CaseSummary[]; page: Page }>('GET', '/cases', {
+  const { data, page } = await request<PageEnvelope<CaseListItem>>('GET', '/cases', {
     query: { ...filter },
   })
   return { cases: data, page }
 }
 
-export async function fetchCase(id: number): Promise<CaseWithNextStates> {
-  const { data } = await request<{ data: CaseWithNextStates }>('GET', `/cases/${id}`)
+export async function fetchCase(id: number): Promise<CaseView> {
+  const { data } = await request<{ data: CaseView }>('GET', `/cases/${id}`)
   return data
 }
 
@@ -36,9 +49,30 @@ export async function createCase(newCase: CaseCreate): Promise<CaseDetail> {
   return data
 }
 
-export async function changeCaseStatus(id: number, status: CaseState): Promise<CaseWithNextStates> {
-  const { data } = await request<{ data: CaseWithNextStates }>('POST', `/cases/${id}/status`, {
+export async function updateCase(id: number, change: CaseUpdate): Promise<CaseDetail> {
+  const { data } = await request<{ data: CaseDetail }>('PATCH', `/cases/${id}`, { body: change })
+  return data
+}
+
+export async function changeCaseStatus(id: number, status: CaseState): Promise<CaseDetail> {
+  const { data } = await request<{ data: CaseDetail }>('POST', `/cases/${id}/status`, {
     body: { status },
   })
   return data
+}
+
+export interface ActivityFilter {
+  page: number
+  pageSize: number
+  actorId?: number
+  kind?: ActivityKind
+}
+
+export async function fetchActivity(
+  caseId: number,
+  filter: ActivityFilter,
+): Promise<PageEnvelope<ActivityEntry>> {
+  return request<PageEnvelope<ActivityEntry>>('GET', `/cases/${caseId}/activity`, {
+    query: { ...filter },
+  })
 }

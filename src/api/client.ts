@@ -31,7 +31,7 @@ export interface RequestOptions {
 export function isSessionProblem(error: unknown): boolean {
   return (
     error instanceof ApiError &&
-    ((error.status === 401 && error.code === 'unauthorized') ||
+    ((error.status === 401 && error.code === 'unauthenticated') ||
       (error.status === 403 && error.code === 'password_change_required'))
   )
 }

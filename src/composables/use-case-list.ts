@@ -1,9 +1,13 @@
 import { computed, onBeforeUnmount, ref, watch } from 'vue'
 import { useRoute, useRouter, type LocationQuery } from 'vue-router'
-import { listCases, type CaseListFilter } from '@/api/cases'
 import { isSessionProblem } from '@/api/client'
-import type { CaseSummary } from '../../shared/schemas/cases'
-import { CASE_STATES, type CaseState } from '../../shared/workflow/case-states'
+import { listCases, type CaseListFilter, type CaseListItem } from '@/api/cases'
+import {
+  CASE_STATES,
+  CLIENT_STAGES,
+  type CaseState,
+  type ClientStage,
+} from '../../shared/workflow/case-states'
 
 export const CASES_PER_PAGE = 25
 const SEARCH_PAUSE_MS = 300
@@ -23,6 +27,11 @@ function queryState(query: LocationQuery): CaseState | undefined {
   return CASE_STATES.find((state) => state === value)
 }
 
+function queryStage(query: LocationQuery): ClientStage | undefined {
+  const value = queryText(query, 'stage')
+  return CLIENT_STAGES.find((stage) => stage === value)
+}
+
 /**
  * One page of the case list, fetched from the server by page, status, organisation and search.
  * The filters live in the address too, so coming back from a case shows the same page.
@@ -33,11 +42,13 @@ export function useCaseList() {
 
   const page = ref(queryNumber(route.query, 'page') ?? 1)
   const status = ref<CaseState | null>(queryState(route.query) ?? null)
+  // clients filter by the plain stages they are shown, staff by the working states
+  const stage = ref<ClientStage | null>(queryStage(route.query) ?? null)
   const organisationId = ref<number | null>(queryNumber(route.query, 'organisationId') ?? null)
   const search = ref(queryText(route.query, 'q') ?? '')
   const appliedSearch = ref(search.value.trim())
 
-  const cases = ref<CaseSummary[]>([])
+  const cases = ref<CaseListItem[]>([])
   const total = ref(0)
   const loading = ref(false)
   const loadError = ref('')
@@ -51,7 +62,7 @@ export function useCaseList() {
     }, SEARCH_PAUSE_MS)
   })
   onBeforeUnmount(() => clearTimeout(searchTimer))
-  watch([status, organisationId], () => {
+  watch([status, stage, organisationId], () => {
     page.value = 1
   })
 
@@ -59,6 +70,7 @@ export function useCaseList() {
     page: page.value,
     pageSize: CASES_PER_PAGE,
     status: status.value ?? undefined,
+    stage: stage.value ?? undefined,
     organisationId: organisationId.value ?? undefined,
     q: appliedSearch.value || undefined,
   }))
@@ -84,13 +96,18 @@ export function useCaseList() {
 
   watch(
     filter,
-    ({ page: pageNumber, status: state, organisationId: organisation, q }) => {
-      const query = { page: pageNumber > 1 ? String(pageNumber) : undefined, status: state, q }
+    ({ page: pageNumber, status: state, stage: clientStage, organisationId: organisation, q }) => {
+      const query = {
+        page: pageNumber > 1 ? String(pageNumber) : undefined,
+        status: state,
+        stage: clientStage,
+        q,
+      }
       void router.replace({ query: { ...query, organisationId: organisation?.toString() } })
       void load()
     },
     { immediate: true },
   )
 
-  return { page, status, organisationId, search, cases, total, loading, loadError, load }
+  return { page, status, stage, organisationId, search, cases, total, loading, loadError, load }
 }

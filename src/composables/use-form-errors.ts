@@ -1,5 +1,5 @@
 import { ref, watch } from 'vue'
-import type { z } from 'zod'
+import type { z } from 'zod/mini'
 import { ApiError } from '@/api/client'
 
 type FieldMessages = Record<string, string>
@@ -29,7 +29,7 @@ export function useFormErrors() {
   }
 
   /** Parses the form's value; on failure shows each issue beside its field and answers undefined. */
-  function validate<Schema extends z.ZodType>(
+  function validate<Schema extends z.ZodMiniType>(
     schema: Schema,
     value: unknown,
   ): z.output<Schema> | undefined {

@@ -5,7 +5,8 @@ import { listStaff, type StaffMember } from '@/api/staff'
 import { useFormErrors } from '@/composables/use-form-errors'
 import { useOrganisationsStore } from '@/stores/organisations'
 import { useSessionStore } from '@/stores/session'
-import { CaseCreate, type Priority } from '../../shared/schemas/cases'
+import type { Turnaround } from '../../shared/schemas/case-vocabulary'
+import { CaseCreate } from '../../shared/schemas/cases'
 
 function emptyToNull(text: string): string | null {
   return text.trim() === '' ? null : text
@@ -24,7 +25,9 @@ export function useNewCaseForm() {
     component: '',
     partNumber: '',
     material: '',
-    priority: 'normal' as Priority,
+    turnaround: 'standard' as Turnaround,
+    safetyCritical: false,
+    receivedOn: '',
     leadInvestigatorId: null as number | null,
     failureDate: '',
     dueDate: '',
@@ -50,6 +53,7 @@ export function useNewCaseForm() {
       ...form,
       partNumber: emptyToNull(form.partNumber),
       failureDate: emptyToNull(form.failureDate),
+      receivedOn: emptyToNull(form.receivedOn),
       dueDate: emptyToNull(form.dueDate),
     })
     if (!newCase) return

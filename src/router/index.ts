@@ -1,5 +1,6 @@
 import { createRouter, createWebHistory } from 'vue-router'
 import type { Role } from '../../shared/schemas/roles'
+import { CASE_SECTIONS } from './case-sections'
 import { installSessionGuard } from './session-guard'
 
 declare module 'vue-router' {
@@ -46,10 +47,15 @@ export const router = createRouter({
     },
     {
       path: '/cases/:id(\\d+)',
-      name: 'case',
-      component: () => import('@/views/CaseView.vue'),
+      component: () => import('@/views/CaseLayoutView.vue'),
       props: (route) => ({ id: Number(route.params.id) }),
       meta: { title: 'Case' },
+      children: CASE_SECTIONS.map((section) => ({
+        path: section.path,
+        name: section.name,
+        component: section.component,
+        meta: { title: section.label, roles: section.roles },
+      })),
     },
     {
       path: '/admin/people',

@@ -158,7 +158,7 @@ describe('sign-out and session end', () => {
     for (const path of ['/api/auth/me', '/api/cases', '/api/people', '/api/organisations']) {
       const response = await request(app).get(path)
       expect(response.status, path).toBe(401)
-      expect(response.body.error.code).toBe('unauthorized')
+      expect(response.body.error.code).toBe('unauthenticated')
     }
   })
 

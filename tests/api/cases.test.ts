@@ -200,9 +200,10 @@ describe('POST /api/cases/:id/status', () => {
   it('refuses a jump the table does not allow with 409', async () => {
     const created = await makeCase(db, orgA, investigator.id)
     const response = await sessions.investigator.post(`/api/cases/${created.id}/status`, {
-      status: 'released',
+      status: 'issued',
     })
     expect(response.status).toBe(409)
+    expect(response.body.error.code).toBe('invalid_transition')
   })
 
   it('keeps review and release transitions to their own actions', async () => {
@@ -227,7 +228,7 @@ describe('POST /api/cases/:id/status', () => {
       .expect(403)
     await sessions.client2
       .post(`/api/cases/${created.id}/status`, { status: 'examination' })
-      .expect(403)
+      .expect(404)
     const unchanged = await db('cases').where({ id: created.id }).first('status')
     expect(unchanged.status).toBe('intake')
   })

@@ -70,7 +70,8 @@ describe('API errors', () => {
       .set('Content-Type', 'application/json')
       .send('{"broken":')
       .expect(400)
-    expect(response.body.error.code).toBe('malformed_json')
+    expect(response.body.error.code).toBe('validation_failed')
+    expect(response.body.error.message).toBe('The request body is not valid JSON.')
     expect(JSON.stringify(response.body)).not.toMatch(/at .*\.ts:\d+/)
   })
 
@@ -86,7 +87,7 @@ describe('API errors', () => {
     const logged: unknown[] = []
     const probe = express()
     probe.get('/conflict', () => {
-      throw new AppError(409, 'conflict', 'Already there.', { field: 'number' })
+      throw new AppError('conflict', 'Already there.', { field: 'number' })
     })
     probe.get('/boom', () => {
       throw new Error('secret internals')

@@ -30,7 +30,7 @@ beforeAll(async () => {
 afterAll(() => db.destroy())
 
 interface RouteCase {
-  method: 'get' | 'post' | 'put'
+  method: 'get' | 'post' | 'put' | 'patch'
   /** path with :ownCase, :otherCase, :person or :organisation standing for the ids made above */
   template: string
   body?: object
@@ -72,7 +72,26 @@ const ROUTES: RouteCase[] = [
     method: 'post',
     template: '/api/cases/:otherCase/status',
     body: {},
+    expect: { admin: 400, investigator: 400, client: 404, others: 403 },
+  },
+  // the cases have no lead yet, so any investigator may take them on
+  {
+    method: 'patch',
+    template: '/api/cases/:ownCase',
+    body: {},
     expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'patch',
+    template: '/api/cases/:otherCase',
+    body: {},
+    expect: { admin: 400, investigator: 400, client: 404, others: 403 },
+  },
+  { method: 'get', template: '/api/cases/:ownCase/activity', expect: { client: 403, others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/activity',
+    expect: { client: 404, others: 200 },
   },
 ]
 

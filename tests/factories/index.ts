@@ -1,5 +1,5 @@
 import type { Knex } from 'knex'
-import type { CaseCreate } from '../../shared/schemas/cases'
+import { CaseCreate } from '../../shared/schemas/cases'
 import type { Role } from '../../shared/schemas/roles'
 import { hashPassword } from '../../server/auth/passwords'
 import { createCaseService } from '../../server/services/cases'
@@ -38,25 +38,20 @@ export async function makePerson(
   return { id: id as number, email, password: TEST_PASSWORD }
 }
 
+/** A case opened through the real service, by an administrator-like actor `createdBy`. */
 export async function makeCase(
   db: Knex,
   organisationId: number,
   createdBy: number,
   overrides: Partial<CaseCreate> = {},
 ) {
-  return createCaseService(db).create(
-    {
-      title: unique('Case'),
-      organisationId,
-      component: 'Test component',
-      partNumber: null,
-      material: 'Test steel',
-      priority: 'normal',
-      leadInvestigatorId: null,
-      failureDate: null,
-      dueDate: null,
-      ...overrides,
-    },
-    createdBy,
-  )
+  const input = CaseCreate.parse({
+    title: unique('Case'),
+    organisationId,
+    component: 'Test component',
+    material: 'Test steel',
+    ...overrides,
+  })
+  const actor = { id: createdBy, roles: ['admin'] as Role[], organisationId: null }
+  return createCaseService().create({ actor, db }, input)
 }

@@ -33,6 +33,14 @@ export class ApiSession {
     return this.agent.post(path).set('X-CSRF-Token', this.token).send(body)
   }
 
+  patch(path: string, body?: object) {
+    return this.agent.patch(path).set('X-CSRF-Token', this.token).send(body)
+  }
+
+  delete(path: string) {
+    return this.agent.delete(path).set('X-CSRF-Token', this.token)
+  }
+
   put(path: string, body?: object) {
     return this.agent.put(path).set('X-CSRF-Token', this.token).send(body)
   }

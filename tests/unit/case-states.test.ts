@@ -22,16 +22,16 @@ describe('the case state table', () => {
         'in_review>revisions_requested',
         'revisions_requested>in_review',
         'in_review>approved',
-        'approved>released',
-        'released>closed',
-        'released>drafting',
+        'approved>issued',
+        'issued>closed',
+        'issued>drafting',
       ].sort(),
     )
   })
 
   it('lets investigators make the plain steps', () => {
     expect(checkTransition('intake', 'examination', ['investigator']).allowed).toBe(true)
-    expect(checkTransition('released', 'drafting', ['investigator']).allowed).toBe(true)
+    expect(checkTransition('issued', 'drafting', ['investigator']).allowed).toBe(true)
   })
 
   it('refuses a step that is not in the table', () => {
@@ -52,18 +52,18 @@ describe('the case state table', () => {
     })
   })
 
-  it('keeps review and release steps to their own actions', () => {
+  it('keeps review and issue steps to their own actions', () => {
     expect(checkTransition('drafting', 'in_review', ['investigator'])).toEqual({
       allowed: false,
       reason: 'route',
     })
     expect(checkTransition('in_review', 'approved', ['reviewer'], 'review').allowed).toBe(true)
-    expect(checkTransition('approved', 'released', ['investigator'], 'release').allowed).toBe(true)
+    expect(checkTransition('approved', 'issued', ['investigator'], 'issue').allowed).toBe(true)
   })
 
   it('offers only the plain next steps a role may take', () => {
     expect(nextStates('intake', ['investigator'])).toEqual(['examination'])
-    expect(nextStates('released', ['admin'])).toEqual(['closed', 'drafting'])
+    expect(nextStates('issued', ['admin'])).toEqual(['closed', 'drafting'])
     expect(nextStates('drafting', ['investigator'])).toEqual([])
     expect(nextStates('intake', ['client'])).toEqual([])
   })

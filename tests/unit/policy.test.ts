@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest'
-import { can, organisationScope, type Action, type Actor } from '../../server/auth/policy'
+import {
+  can,
+  organisationScope,
+  type Actor,
+  type CaseAction,
+  type CaseRef,
+  type GlobalAction,
+} from '../../shared/access/policy'
 import type { Role } from '../../shared/schemas/roles'
+import { CASE_STATES, type CaseState } from '../../shared/workflow/case-states'
 
 const actor = (role: Role, organisationId: number | null = null): Actor => ({
   id: 1,
@@ -8,8 +16,8 @@ const actor = (role: Role, organisationId: number | null = null): Actor => ({
   organisationId,
 })
 
-// Every role × action, without a case: the expected answer is written out in full.
-const TABLE: Record<Action, Record<Role, boolean>> = {
+// Every role × action without a case: the expected answer is written out in full.
+const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
   'people.manage': { admin: true, investigator: false, lab: false, reviewer: false, client: false },
   'organisations.manage': {
     admin: true,
@@ -28,18 +36,13 @@ const TABLE: Record<Action, Record<Role, boolean>> = {
   'staff.list': { admin: true, investigator: true, lab: true, reviewer: true, client: false },
   'cases.list': { admin: true, investigator: true, lab: true, reviewer: true, client: true },
   'case.create': { admin: true, investigator: true, lab: false, reviewer: false, client: false },
-  'case.view': { admin: true, investigator: true, lab: true, reviewer: true, client: true },
-  'case.changeStatus': {
-    admin: true,
-    investigator: true,
-    lab: false,
-    reviewer: false,
-    client: false,
-  },
 }
 
 describe('access policy: role × action', () => {
-  for (const [action, byRole] of Object.entries(TABLE) as [Action, Record<Role, boolean>][]) {
+  for (const [action, byRole] of Object.entries(GLOBAL) as [
+    GlobalAction,
+    Record<Role, boolean>,
+  ][]) {
     for (const [role, expected] of Object.entries(byRole) as [Role, boolean][]) {
       it(`${role} ${expected ? 'may' : 'may not'} ${action}`, () => {
         expect(can(actor(role, role === 'client' ? 7 : null), action)).toBe(expected)
@@ -48,26 +51,96 @@ describe('access policy: role × action', () => {
   }
 })
 
-describe('access policy: a case belongs to an organisation', () => {
-  const ownCase = { organisationId: 7 }
-  const otherCase = { organisationId: 8 }
+// The people a case can meet, each with their part in the case below (organisation 7, lead 10,
+// co-investigator 11, lab technician 12, reviewer 13).
+const WHO: Record<string, { actor: Actor; unled?: boolean }> = {
+  admin: { actor: { id: 1, roles: ['admin'], organisationId: null } },
+  lead: { actor: { id: 10, roles: ['investigator'], organisationId: null } },
+  coInvestigator: { actor: { id: 11, roles: ['investigator'], organisationId: null } },
+  otherInvestigator: { actor: { id: 19, roles: ['investigator'], organisationId: null } },
+  investigatorOfUnledCase: {
+    actor: { id: 19, roles: ['investigator'], organisationId: null },
+    unled: true,
+  },
+  labTechnician: { actor: { id: 12, roles: ['lab'], organisationId: null } },
+  reviewer: { actor: { id: 13, roles: ['reviewer'], organisationId: null } },
+  otherReviewer: { actor: { id: 18, roles: ['reviewer'], organisationId: null } },
+  ownClient: { actor: { id: 30, roles: ['client'], organisationId: 7 } },
+  otherClient: { actor: { id: 31, roles: ['client'], organisationId: 8 } },
+}
 
-  it('lets staff reach every organisation’s case', () => {
-    for (const role of ['admin', 'investigator', 'lab', 'reviewer'] as const) {
-      expect(can(actor(role), 'case.view', otherCase)).toBe(true)
+function caseIn(status: CaseState, unled = false): CaseRef {
+  return {
+    organisationId: 7,
+    status,
+    leadInvestigatorId: unled ? null : 10,
+    coInvestigatorIds: [11],
+    labTechnicianId: 12,
+    reviewerId: 13,
+  }
+}
+
+type Row = Record<CaseAction, boolean>
+const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Row => ({
+  'case.view': view,
+  'case.viewInternal': internal,
+  'case.viewActivity': internal,
+  'case.edit': edit,
+  'case.changeStatus': move,
+})
+
+// While a case is open (every state but closed): view, internal view and activity, edit, move.
+const OPEN: Record<keyof typeof WHO, Row> = {
+  admin: row(true, true, true, true),
+  lead: row(true, true, true, true),
+  coInvestigator: row(true, true, false, true),
+  otherInvestigator: row(true, true, false, false),
+  investigatorOfUnledCase: row(true, true, true, true),
+  labTechnician: row(true, true, false, false),
+  reviewer: row(true, true, false, false),
+  otherReviewer: row(true, true, false, false),
+  ownClient: row(true, false, false, false),
+  otherClient: row(false, false, false, false),
+}
+
+// Once closed, the case is read-only for everybody.
+const CLOSED: Record<keyof typeof WHO, Row> = {
+  admin: row(true, true, false, false),
+  lead: row(true, true, false, false),
+  coInvestigator: row(true, true, false, false),
+  otherInvestigator: row(true, true, false, false),
+  investigatorOfUnledCase: row(true, true, false, false),
+  labTechnician: row(true, true, false, false),
+  reviewer: row(true, true, false, false),
+  otherReviewer: row(true, true, false, false),
+  ownClient: row(true, false, false, false),
+  otherClient: row(false, false, false, false),
+}
+
+describe('access policy: person × part × case action × state', () => {
+  for (const status of CASE_STATES) {
+    const table = status === 'closed' ? CLOSED : OPEN
+    for (const [who, expected] of Object.entries(table)) {
+      const { actor: person, unled } = WHO[who]!
+      it(`${who} on a case in ${status}`, () => {
+        const answers = Object.fromEntries(
+          (Object.keys(expected) as CaseAction[]).map((action) => [
+            action,
+            can(person, action, caseIn(status, unled)),
+          ]),
+        )
+        expect(answers).toEqual(expected)
+      })
     }
+  }
+
+  it('combines roles: a reviewer who is also an investigator may open cases', () => {
+    const both: Actor = { id: 2, roles: ['reviewer', 'investigator'], organisationId: null }
+    expect(can(both, 'case.create')).toBe(true)
   })
 
-  it('lets a client reach only their own organisation’s case', () => {
-    expect(can(actor('client', 7), 'case.view', ownCase)).toBe(true)
-    expect(can(actor('client', 7), 'case.view', otherCase)).toBe(false)
-    expect(can(actor('client', null), 'case.view', ownCase)).toBe(false)
-  })
-
-  it('combines roles: a reviewer who is also an investigator may create cases', () => {
-    expect(
-      can({ id: 2, roles: ['reviewer', 'investigator'], organisationId: null }, 'case.create'),
-    ).toBe(true)
+  it('never lets a client without an organisation reach a case', () => {
+    expect(can(actor('client', null), 'case.view', caseIn('intake'))).toBe(false)
   })
 
   it('limits a client’s lists to their organisation, and staff lists to none', () => {

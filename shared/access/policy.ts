@@ -1,0 +1,119 @@
+import type { Role } from '../schemas/roles'
+import type { CaseState } from '../workflow/case-states'
+
+/** Who is asking: enough of the signed-in person to decide. */
+export interface Actor {
+  id: number
+  roles: readonly Role[]
+  organisationId: number | null
+}
+
+/** Enough of a case to decide: its owner organisation, its state and the people on it. */
+export interface CaseRef {
+  organisationId: number
+  status: CaseState
+  leadInvestigatorId: number | null
+  coInvestigatorIds: readonly number[]
+  labTechnicianId: number | null
+  reviewerId: number | null
+}
+
+export type GlobalAction =
+  | 'people.manage'
+  | 'organisations.manage'
+  | 'organisations.list'
+  | 'staff.list'
+  | 'cases.list'
+  | 'case.create'
+
+export type CaseAction =
+  /** see that the case exists (a client: as a plain status line) */
+  | 'case.view'
+  /** see the whole case record, internal fields and people included */
+  | 'case.viewInternal'
+  /** change the case record, its classification, people and interested parties */
+  | 'case.edit'
+  /** make the plain status changes of the state table */
+  | 'case.changeStatus'
+  | 'case.viewActivity'
+
+export type Action = GlobalAction | CaseAction
+
+export const STAFF_ROLES: readonly Role[] = ['admin', 'investigator', 'lab', 'reviewer']
+
+export const isStaff = (actor: Actor) => actor.roles.some((role) => STAFF_ROLES.includes(role))
+const holds = (actor: Actor, ...roles: Role[]) => actor.roles.some((role) => roles.includes(role))
+
+/** Which roles may take each action at all; the case-level rules below narrow it down. */
+const ROLE_RULES: Record<Action, readonly Role[]> = {
+  'people.manage': ['admin'],
+  'organisations.manage': ['admin'],
+  'organisations.list': [...STAFF_ROLES, 'client'],
+  'staff.list': STAFF_ROLES,
+  'cases.list': [...STAFF_ROLES, 'client'],
+  'case.create': ['admin', 'investigator'],
+  'case.view': [...STAFF_ROLES, 'client'],
+  'case.viewInternal': STAFF_ROLES,
+  'case.edit': ['admin', 'investigator'],
+  'case.changeStatus': ['admin', 'investigator'],
+  'case.viewActivity': STAFF_ROLES,
+}
+
+/** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
+export function partsIn(actor: Actor, caseRef: CaseRef) {
+  return {
+    lead: caseRef.leadInvestigatorId === actor.id,
+    coInvestigator: caseRef.coInvestigatorIds.includes(actor.id),
+    lab: caseRef.labTechnicianId === actor.id,
+    reviewer: caseRef.reviewerId === actor.id,
+  }
+}
+
+/**
+ * The lead investigator (or, while a case has no lead, any investigator, so one can take it on)
+ * and administrators keep the record; co-investigators may also move it along. Nothing changes
+ * once a case is closed.
+ */
+function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
+  if (!isStaff(actor)) {
+    return (
+      action === 'case.view' &&
+      actor.organisationId !== null &&
+      actor.organisationId === caseRef.organisationId
+    )
+  }
+  if (action === 'case.view' || action === 'case.viewInternal') return true
+  if (action === 'case.viewActivity') return true
+  if (caseRef.status === 'closed') return false
+  if (holds(actor, 'admin')) return true
+  const parts = partsIn(actor, caseRef)
+  const unled = caseRef.leadInvestigatorId === null && holds(actor, 'investigator')
+  if (action === 'case.edit') return parts.lead || unled
+  return parts.lead || parts.coInvestigator || unled
+}
+
+/**
+ * The one answer to "may this person do that (to this case)?", asked by the server's routes and
+ * by the client to decide which pages and buttons to show. Without a case, a case action answers
+ * whether the person's roles could take it on some case.
+ */
+export function can(actor: Actor, action: Action, caseRef?: CaseRef): boolean {
+  if (!holds(actor, ...ROLE_RULES[action])) return false
+  if (!caseRef) return true
+  if (!(action in CASE_ACTIONS)) return true
+  return caseRule(actor, action as CaseAction, caseRef)
+}
+
+const CASE_ACTIONS: Record<CaseAction, true> = {
+  'case.view': true,
+  'case.viewInternal': true,
+  'case.edit': true,
+  'case.changeStatus': true,
+  'case.viewActivity': true,
+}
+
+/** The organisation a person's lists are limited to: none for staff, their own for a client. */
+export function organisationScope(actor: Actor): number | undefined {
+  if (isStaff(actor)) return undefined
+  return actor.organisationId ?? -1
+}

@@ -1,0 +1,39 @@
+/**
+ * Every error code the API answers with, and its HTTP status. Both sides read this table: the
+ * server to pick the status, the client to know what a refusal means. Later features add rows.
+ */
+export const ERROR_STATUS = {
+  /** malformed or wrong-shaped input; `details` lists `{ path, message }` per field */
+  validation_failed: 400,
+  unauthenticated: 401,
+  invalid_credentials: 401,
+  forbidden: 403,
+  password_change_required: 403,
+  csrf_invalid: 403,
+  not_found: 404,
+  /** a duplicate of something that must be unique (an e-mail address, a number) */
+  conflict: 409,
+  /** the record changed since the editor read it; `details.current` holds it as it is now */
+  version_conflict: 409,
+  reviewer_is_lead: 409,
+  invalid_transition: 409,
+  payload_too_large: 413,
+  unsupported_file_type: 415,
+  too_many_requests: 429,
+  internal_error: 500,
+  /** a stored record failed its hash check */
+  integrity_error: 500,
+  database_unavailable: 503,
+} as const
+
+export type ErrorCode = keyof typeof ERROR_STATUS
+
+export interface FieldIssue {
+  path: string
+  message: string
+}
+
+/** The body of every refusal. */
+export interface ErrorBody {
+  error: { code: ErrorCode; message: string; details?: unknown }
+}

@@ -1,0 +1,43 @@
+import { z } from 'zod/mini'
+import { Id, PageQuery } from './common'
+
+/** Kinds of activity a case records; features add their own as they land. */
+export const ACTIVITY_KINDS = [
+  'case.created',
+  'case.updated',
+  'case.status_changed',
+  'case.assigned',
+  'case.classified',
+] as const
+export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
+
+export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
+  'case.created': 'Case opened',
+  'case.updated': 'Record edited',
+  'case.status_changed': 'Status changed',
+  'case.assigned': 'People assigned',
+  'case.classified': 'Classification changed',
+}
+
+export const ActivityQuery = z.strictObject({
+  ...PageQuery,
+  actorId: z.optional(Id),
+  kind: z.optional(z.enum(ACTIVITY_KINDS, { error: 'Choose a kind of activity from the list.' })),
+})
+export type ActivityQuery = z.output<typeof ActivityQuery>
+
+/** One field's value before and after an edit. */
+export interface FieldChange {
+  from: unknown
+  to: unknown
+}
+
+export interface ActivityEntry {
+  id: number
+  at: string
+  actorId: number | null
+  actorName: string | null
+  kind: ActivityKind
+  /** for edits: `{ changes: { field: { from, to } } }`; for status changes: `{ from, to }` */
+  details: Record<string, unknown> | null
+}

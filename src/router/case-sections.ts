@@ -1,0 +1,50 @@
+import type { RouteComponent } from 'vue-router'
+import type { Role } from '../../shared/schemas/roles'
+
+const STAFF: readonly Role[] = ['admin', 'investigator', 'lab', 'reviewer']
+
+export interface CaseSection {
+  name: string
+  /** path under /cases/:id */
+  path: string
+  label: string
+  /** only people holding one of these roles see the section */
+  roles?: readonly Role[]
+  component: () => Promise<RouteComponent>
+}
+
+const notYet = () => import('@/views/case/CaseSectionEmptyView.vue')
+
+/** The sections of the case workspace, in the order of the work. */
+export const CASE_SECTIONS: readonly CaseSection[] = [
+  {
+    name: 'case',
+    path: '',
+    label: 'Overview',
+    component: () => import('@/views/case/CaseOverviewView.vue'),
+  },
+  {
+    name: 'case-service-history',
+    path: 'service-history',
+    label: 'Service history',
+    roles: STAFF,
+    component: notYet,
+  },
+  { name: 'case-evidence', path: 'evidence', label: 'Evidence', roles: STAFF, component: notYet },
+  {
+    name: 'case-mechanical-tests',
+    path: 'mechanical-tests',
+    label: 'Mechanical tests',
+    roles: STAFF,
+    component: notYet,
+  },
+  { name: 'case-findings', path: 'findings', label: 'Findings', roles: STAFF, component: notYet },
+  { name: 'case-review', path: 'review', label: 'Review', roles: STAFF, component: notYet },
+  {
+    name: 'case-activity',
+    path: 'activity',
+    label: 'Activity',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseActivityView.vue'),
+  },
+]

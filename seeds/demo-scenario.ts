@@ -1,4 +1,5 @@
 import type { CaseCreate } from '../shared/schemas/cases'
+import type { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { Role } from '../shared/schemas/roles'
 import type { CaseState } from '../shared/workflow/case-states'
 
@@ -84,6 +85,9 @@ export interface DemoCase extends Omit<
   dueInDays: number
   /** reached through the real transitions, one step at a time */
   status: Extract<CaseState, 'intake' | 'examination' | 'drafting'>
+  /** the part's life before it failed; `daysAgo` relative to the day of seeding */
+  history?: (Omit<Partial<ServiceEventCreate>, 'occurredOn'> &
+    Pick<ServiceEventCreate, 'kind' | 'description'> & { daysAgo: number })[]
 }
 
 export const CASES: DemoCase[] = [
@@ -110,6 +114,47 @@ export const CASES: DemoCase[] = [
     receivedDaysAgo: 41,
     dueInDays: 3,
     status: 'examination',
+    history: [
+      {
+        kind: 'manufacture',
+        daysAgo: 3420,
+        description: 'Pin machined from bar and quenched and tempered by the crane builder.',
+        source: 'Builder’s material certificate',
+        clientVisible: true,
+      },
+      {
+        kind: 'installation',
+        daysAgo: 3290,
+        description: 'Crane 3 commissioned with the original hook block.',
+        hours: 0,
+        cycles: 0,
+        clientVisible: true,
+      },
+      {
+        kind: 'inspection',
+        daysAgo: 410,
+        description: 'Annual thorough examination; pin bore greased, no defects reported.',
+        hours: 36_800,
+        cycles: 512_000,
+        source: 'Inspection report TE-22/118',
+      },
+      {
+        kind: 'incident',
+        daysAgo: 95,
+        description: 'Snatch load when a container caught on the cell guide; crane stopped.',
+        load: 'about 1.3 × safe working load (estimated)',
+      },
+      {
+        kind: 'failure',
+        daysAgo: 48,
+        description: 'Pin parted during a routine lift; load landed without injury.',
+        hours: 40_150,
+        cycles: 561_300,
+        environment: 'outdoor, coastal',
+        temperatureC: 9,
+        clientVisible: true,
+      },
+    ],
     interestedParties: [
       {
         name: 'Rhoswen Aldgate',
@@ -224,6 +269,31 @@ export const CASES: DemoCase[] = [
     receivedDaysAgo: 131,
     dueInDays: 5,
     status: 'drafting',
+    history: [
+      {
+        kind: 'installation',
+        daysAgo: 1460,
+        description: 'Transfer pump P-12 installed on the acid transfer line.',
+        hours: 0,
+        clientVisible: true,
+      },
+      {
+        kind: 'repair',
+        daysAgo: 700,
+        description: 'Coupling replaced after vibration alarm; shaft not changed.',
+        hours: 16_200,
+        source: 'Maintenance work order 4471',
+      },
+      {
+        kind: 'failure',
+        daysAgo: 140,
+        description: 'Shaft fractured at the keyway run-out behind the coupling.',
+        hours: 28_900,
+        temperatureC: 45,
+        environment: 'dilute sulphuric acid service',
+        clientVisible: true,
+      },
+    ],
     mechanisms: [{ mechanism: 'fatigue_high_cycle', primary: true }],
     rootCause: 'design',
   },

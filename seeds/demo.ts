@@ -4,6 +4,9 @@ import { CaseCreate } from '../shared/schemas/cases'
 import { findTransition, type CaseState } from '../shared/workflow/case-states'
 import { hashPassword } from '../server/auth/passwords'
 import { createCaseService } from '../server/services/cases'
+import { createServiceEventService } from '../server/services/service-events'
+import { createLocalStorage } from '../server/storage/local-storage'
+import { ServiceEventCreate } from '../shared/schemas/service-events'
 import { CASES, DEMO_LAB_NAME, ORGANISATIONS, PEOPLE, type DemoCase } from './demo-scenario'
 
 export { DEMO_LAB_NAME } from './demo-scenario'
@@ -49,7 +52,16 @@ function caseInput(
   organisationIds: Map<string, number>,
   actors: Map<string, Actor>,
 ): CaseCreate {
-  const { organisation, lead, coInvestigators, lab, reviewer, status: _status, ...rest } = demo
+  const {
+    organisation,
+    lead,
+    coInvestigators,
+    lab,
+    reviewer,
+    status: _s,
+    history: _h,
+    ...rest
+  } = demo
   const { failedDaysAgo, receivedDaysAgo, dueInDays, ...fields } = rest
   const idOf = (key: string | undefined) => (key ? actors.get(key)!.id : null)
   return CaseCreate.parse({
@@ -66,6 +78,16 @@ function caseInput(
 }
 
 /** Opens each demo case as the administrator and moves it on as its lead, step by step. */
+async function seedHistory(trx: Knex, demo: DemoCase, caseId: number, lead: Actor, today: Date) {
+  // the demo uploads no files, so this storage is never written to
+  const storage = createLocalStorage('uploads')
+  const events = createServiceEventService({ storage, clock: () => today })
+  for (const { daysAgo, ...event } of demo.history ?? []) {
+    const input = ServiceEventCreate.parse({ ...event, occurredOn: daysFrom(today, -daysAgo) })
+    await events.create({ actor: lead, db: trx }, caseId, input)
+  }
+}
+
 async function seedCases(
   trx: Knex,
   today: Date,
@@ -78,6 +100,7 @@ async function seedCases(
     const input = caseInput(demo, today, organisationIds, actors)
     const created = await cases.create({ actor: admin, db: trx }, input)
     const lead = actors.get(demo.lead)!
+    await seedHistory(trx, demo, created.id, lead, today)
     let status = created.status
     for (const next of WAY_TO[demo.status]) {
       if (!findTransition(status, next)) throw new Error(`demo: no way from ${status} to ${next}`)

@@ -19,6 +19,8 @@ import { peopleRoutes, staffRoutes } from './routes/people'
 import { createCaseService } from './services/cases'
 import { createOrganisationService } from './services/organisations'
 import { createPeopleService } from './services/people'
+import { createServiceEventService } from './services/service-events'
+import { attachmentRoutes } from './routes/service-events'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
 
@@ -65,7 +67,7 @@ function serveClient(app: Express, clientDir: string): void {
   })
 }
 
-function apiRouter(deps: AppDeps, log: (error: unknown) => void) {
+function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknown) => void) {
   const { db, config } = deps
   const people = createPeopleService(db, { passwordCost: config.passwordCost })
   const passport = createPassport(people)
@@ -81,7 +83,10 @@ function apiRouter(deps: AppDeps, log: (error: unknown) => void) {
   api.use('/people', ...signedIn, peopleRoutes(people))
   api.use('/staff', ...signedIn, staffRoutes(people))
   api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
-  api.use('/cases', ...signedIn, caseRoutes(db, createCaseService()))
+  const cases = createCaseService()
+  const serviceEvents = createServiceEventService({ storage: deps.storage })
+  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents))
+  api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api

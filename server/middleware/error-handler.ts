@@ -33,6 +33,8 @@ export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler
           ? fromHttpError(error as HttpError)
           : undefined
     if (known) {
+      // a refusal of ours above 499 (a failed integrity check) still needs an operator's eye
+      if (known.status >= 500) log(error)
       const body = { code: known.code, message: known.message, details: known.details }
       res.status(known.status).json({ error: body })
       return

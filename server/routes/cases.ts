@@ -8,12 +8,15 @@ import { validate } from '../middleware/validate'
 import { listActivity } from '../services/activity'
 import type { CaseService } from '../services/cases'
 import type { ServiceContext } from '../services/context'
+import type { ServiceEventService } from '../services/service-events'
+import { serviceEventRoutes } from './service-events'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
 /** Routes of one case, behind the case loader. */
-function oneCaseRoutes(db: Knex, cases: CaseService): Router {
+function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
   const router = Router({ mergeParams: true })
+  router.use('/service-events', serviceEventRoutes(db, events))
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
     res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
@@ -47,7 +50,7 @@ function oneCaseRoutes(db: Knex, cases: CaseService): Router {
   return router
 }
 
-export function caseRoutes(db: Knex, cases: CaseService): Router {
+export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
   const router = Router()
   router.get(
     '/',
@@ -67,6 +70,6 @@ export function caseRoutes(db: Knex, cases: CaseService): Router {
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases))
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events))
   return router
 }

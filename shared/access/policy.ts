@@ -36,6 +36,8 @@ export type CaseAction =
   /** make the plain status changes of the state table */
   | 'case.changeStatus'
   | 'case.viewActivity'
+  /** add, change and remove service-history events and their documents */
+  | 'case.editHistory'
 
 export type Action = GlobalAction | CaseAction
 
@@ -57,6 +59,7 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.edit': ['admin', 'investigator'],
   'case.changeStatus': ['admin', 'investigator'],
   'case.viewActivity': STAFF_ROLES,
+  'case.editHistory': ['admin', 'investigator'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -110,6 +113,7 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.edit': true,
   'case.changeStatus': true,
   'case.viewActivity': true,
+  'case.editHistory': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

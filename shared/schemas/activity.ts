@@ -8,6 +8,10 @@ export const ACTIVITY_KINDS = [
   'case.status_changed',
   'case.assigned',
   'case.classified',
+  'service_event.added',
+  'service_event.changed',
+  'service_event.removed',
+  'attachment.added',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -17,6 +21,10 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'case.status_changed': 'Status changed',
   'case.assigned': 'People assigned',
   'case.classified': 'Classification changed',
+  'service_event.added': 'Service event added',
+  'service_event.changed': 'Service event changed',
+  'service_event.removed': 'Service event removed',
+  'attachment.added': 'Document attached',
 }
 
 export const ActivityQuery = z.strictObject({

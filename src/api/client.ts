@@ -24,6 +24,8 @@ type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
 export interface RequestOptions {
   query?: Record<string, string | number | undefined>
   body?: unknown
+  /** a multipart body (file uploads); the browser sets its content type */
+  form?: FormData
   headers?: Record<string, string>
 }
 
@@ -68,14 +70,14 @@ async function toApiError(response: Response): Promise<ApiError> {
 
 async function send(method: Method, path: string, options: RequestOptions, csrfToken?: string) {
   const headers: Record<string, string> = { Accept: 'application/json', ...options.headers }
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json'
+  if (options.body !== undefined && !options.form) headers['Content-Type'] = 'application/json'
   if (csrfToken) headers['X-CSRF-Token'] = csrfToken
   try {
     return await fetch(withQuery(`/api${path}`, options.query), {
       method,
       headers,
       credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.form ?? (options.body === undefined ? undefined : JSON.stringify(options.body)),
     })
   } catch {
     throw new ApiError(0, 'network_error', 'The server cannot be reached. Check the connection.')

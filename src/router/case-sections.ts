@@ -27,8 +27,7 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     name: 'case-service-history',
     path: 'service-history',
     label: 'Service history',
-    roles: STAFF,
-    component: notYet,
+    component: () => import('@/views/case/CaseServiceHistoryView.vue'),
   },
   { name: 'case-evidence', path: 'evidence', label: 'Evidence', roles: STAFF, component: notYet },
   {

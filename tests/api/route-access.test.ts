@@ -30,7 +30,7 @@ beforeAll(async () => {
 afterAll(() => db.destroy())
 
 interface RouteCase {
-  method: 'get' | 'post' | 'put' | 'patch'
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete'
   /** path with :ownCase, :otherCase, :person or :organisation standing for the ids made above */
   template: string
   body?: object
@@ -93,6 +93,36 @@ const ROUTES: RouteCase[] = [
     template: '/api/cases/:otherCase/activity',
     expect: { client: 404, others: 200 },
   },
+  { method: 'get', template: '/api/cases/:ownCase/service-events', expect: { others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/service-events',
+    expect: { client: 404, others: 200 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/service-events',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'patch',
+    template: '/api/cases/:ownCase/service-events/999999',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'delete',
+    template: '/api/cases/:otherCase/service-events/999999',
+    body: {},
+    expect: { admin: 400, investigator: 400, client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/service-events/999999/attachments',
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  { method: 'get', template: '/api/attachments/999999', expect: { others: 404 } },
 ]
 
 const pathOf = (route: RouteCase) =>

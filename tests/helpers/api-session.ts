@@ -37,8 +37,8 @@ export class ApiSession {
     return this.agent.patch(path).set('X-CSRF-Token', this.token).send(body)
   }
 
-  delete(path: string) {
-    return this.agent.delete(path).set('X-CSRF-Token', this.token)
+  delete(path: string, body?: object) {
+    return this.agent.delete(path).set('X-CSRF-Token', this.token).send(body)
   }
 
   put(path: string, body?: object) {

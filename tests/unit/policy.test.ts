@@ -87,6 +87,8 @@ const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Ro
   'case.viewActivity': internal,
   'case.edit': edit,
   'case.changeStatus': move,
+  // the people who move a case along also keep its service history
+  'case.editHistory': move,
 })
 
 // While a case is open (every state but closed): view, internal view and activity, edit, move.

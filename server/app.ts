@@ -13,6 +13,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler'
 import { requirePasswordSet, requireSignedIn } from './middleware/require-auth'
 import { authRoutes } from './routes/auth'
 import { caseRoutes } from './routes/cases'
+import { dashboardRoutes } from './routes/dashboard'
 import { healthRoutes } from './routes/health'
 import { organisationRoutes } from './routes/organisations'
 import { peopleRoutes, staffRoutes } from './routes/people'
@@ -87,6 +88,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const serviceEvents = createServiceEventService({ storage: deps.storage })
   api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
+  api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api

@@ -129,12 +129,44 @@ export const CaseStatusChange = z.strictObject({
 })
 export type CaseStatusChange = z.output<typeof CaseStatusChange>
 
+export const CASE_SORTS = [
+  'number',
+  'title',
+  'component',
+  'status',
+  'turnaround',
+  'dueDate',
+  'createdAt',
+  'updatedAt',
+] as const
+export type CaseSort = (typeof CASE_SORTS)[number]
+
+/** A yes/no filter in a query string: only `true` switches it on. */
+const queryFlag = z.optional(
+  z.pipe(
+    z.enum(['true', 'false'], { error: 'Use true or false.' }),
+    z.transform((value) => value === 'true'),
+  ),
+)
+
 export const CaseListQuery = z.strictObject({
   ...PageQuery,
   status: z.optional(CaseStatus),
   stage: z.optional(z.enum(CLIENT_STAGES)),
   organisationId: z.optional(Id),
+  /** lead investigator or co-investigator */
+  investigatorId: z.optional(Id),
+  overdue: queryFlag,
+  safetyCritical: queryFlag,
+  /** the beginning of the material as specified, e.g. "42CrMo4" */
+  material: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(100))),
+  mechanism: z.optional(z.enum(MECHANISMS, { error: 'Choose a mechanism from the list.' })),
   q: z.optional(z.string().check(z.trim(), z.maxLength(100))),
+  sort: z._default(
+    z.enum(CASE_SORTS, { error: 'Sort by one of the listed columns.' }),
+    'createdAt',
+  ),
+  order: z._default(z.enum(['asc', 'desc'], { error: 'Use asc or desc.' }), 'desc'),
 })
 export type CaseListQuery = z.output<typeof CaseListQuery>
 

@@ -1,8 +1,10 @@
 import type { Page, PageEnvelope } from '../../shared/api/envelope'
 import type { ActivityEntry, ActivityKind } from '../../shared/schemas/activity'
+import type { Mechanism } from '../../shared/schemas/case-vocabulary'
 import type {
   CaseCreate,
   CaseDetail,
+  CaseSort,
   CaseSummary,
   CaseUpdate,
   ClientCaseView,
@@ -16,7 +18,14 @@ export interface CaseListFilter {
   status?: CaseState
   stage?: ClientStage
   organisationId?: number
+  investigatorId?: number
+  overdue?: boolean
+  safetyCritical?: boolean
+  material?: string
+  mechanism?: Mechanism
   q?: string
+  sort?: CaseSort
+  order?: 'asc' | 'desc'
 }
 
 /** Staff receive the working summary of each case, clients their plain status lines. */
@@ -33,9 +42,13 @@ export type CaseView = CaseDetail | ClientCaseView
 export const isCaseDetail = (view: CaseView): view is CaseDetail => 'version' in view
 
 export async function listCases(filter: CaseListFilter): Promise<CaseListPage> {
-  const { data, page } = await request<PageEnvelope<CaseListItem>>('GET', '/cases', {
-    query: { ...filter },
-  })
+  const query = Object.fromEntries(
+    Object.entries(filter).map(([key, value]) => [
+      key,
+      value === undefined ? undefined : String(value),
+    ]),
+  )
+  const { data, page } = await request<PageEnvelope<CaseListItem>>('GET', '/cases', { query })
   return { cases: data, page }
 }
 

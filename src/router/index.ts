@@ -20,7 +20,12 @@ const ADMINS: readonly Role[] = ['admin']
 export const router = createRouter({
   history: createWebHistory(),
   routes: [
-    { path: '/', redirect: { name: 'cases' } },
+    {
+      path: '/',
+      name: 'home',
+      component: () => import('@/views/HomeView.vue'),
+      meta: { title: 'Home' },
+    },
     {
       path: '/sign-in',
       name: 'sign-in',

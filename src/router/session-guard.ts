@@ -21,7 +21,7 @@ function notFound(to: RouteLocationNormalized): RouteLocationRaw {
 
 /** The page to go to, remembering where the person was going unless it was the start page. */
 function withReturn(name: string, to: RouteLocationNormalized): RouteLocationRaw {
-  const start = to.fullPath === '/' || to.fullPath === '/cases'
+  const start = to.fullPath === '/'
   return start ? { name } : { name, query: { redirect: to.fullPath } }
 }
 
@@ -35,7 +35,7 @@ export function installSessionGuard(router: Router): void {
     await session.ensureLoaded()
     const user = session.user
     if (to.meta.public) {
-      return to.name === 'sign-in' && user ? (safeRedirect(to.query.redirect) ?? '/cases') : true
+      return to.name === 'sign-in' && user ? (safeRedirect(to.query.redirect) ?? '/') : true
     }
     if (!user) return withReturn('sign-in', to)
     if (user.mustChangePassword && to.name !== 'set-password') {

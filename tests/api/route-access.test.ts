@@ -123,6 +123,7 @@ const ROUTES: RouteCase[] = [
     expect: { admin: 400, investigator: 400, others: 403 },
   },
   { method: 'get', template: '/api/attachments/999999', expect: { others: 404 } },
+  { method: 'get', template: '/api/dashboard', expect: { others: 200 } },
 ]
 
 const pathOf = (route: RouteCase) =>

@@ -36,6 +36,8 @@ describe('a client', () => {
     const otherCaseId = await caseIdOf('Quillon Process Fittings')
 
     await signIn(page, base, 'client@demo.test', inject('demoPassword'))
+    await page.waitForURL(`${base}/`)
+    await page.getByTestId('nav-cases').click()
     await page.waitForURL(`${base}/cases`)
     const table = page.getByTestId('case-table')
     await expect.poll(() => table.textContent()).toContain('Fractured hook block pin')

@@ -9,6 +9,8 @@ describe('an investigator opening a case', () => {
     const base = inject('baseUrl')
     const title = `Snapped lifting lug ${Date.now()}`
     await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
+    await page.waitForURL(`${base}/`)
+    await page.getByTestId('nav-cases').click()
     await page.waitForURL(`${base}/cases`)
     await expect
       .poll(() => page.getByTestId('case-table').locator('tbody tr').count())

@@ -1,43 +1,111 @@
 import type { Knex } from 'knex'
 import type { Page } from '../../../shared/api/envelope'
 import { isStaff, organisationScope } from '../../../shared/access/policy'
-import type { CaseListQuery, CaseSummary, ClientCaseView } from '../../../shared/schemas/cases'
-import { statesOfStage } from '../../../shared/workflow/case-states'
+import type {
+  CaseListQuery,
+  CaseSort,
+  CaseSummary,
+  ClientCaseView,
+} from '../../../shared/schemas/cases'
+import { todayIso } from '../../../shared/schemas/dates'
+import { statesOfStage, type CaseState } from '../../../shared/workflow/case-states'
+import { ValidationError } from '../../errors'
 import type { ServiceContext } from '../context'
 import { toClientView, toSummary } from './case-record'
+import { applySearch, planSearch } from './case-search'
 
-const STAFF_SEARCH = ['number', 'title', 'component', 'material', 'clientReference']
-const CLIENT_SEARCH = ['number', 'title', 'component', 'clientReference']
+/** States in which a case no longer waits on the lab: its due date is met or moot. */
+export const FINISHED_STATES: CaseState[] = ['issued', 'closed']
 
-function escapeLike(text: string): string {
-  return `%${text.replace(/[\\%_]/g, (char) => `\\${char}`)}%`
+const SORT_COLUMNS: Record<CaseSort, string> = {
+  number: 'cases.number',
+  title: 'cases.title',
+  component: 'cases.component',
+  status: 'cases.status',
+  turnaround: 'cases.turnaround',
+  dueDate: 'cases.dueDate',
+  createdAt: 'cases.createdAt',
+  updatedAt: 'cases.updatedAt',
 }
 
-function filtered(db: Knex, query: CaseListQuery, scope: number | undefined, staff: boolean) {
-  const cases = db('cases')
-  if (scope !== undefined) cases.where('cases.organisationId', scope)
+function applyFilters(cases: Knex.QueryBuilder, query: CaseListQuery, today: string) {
   if (query.organisationId) cases.where('cases.organisationId', query.organisationId)
   if (query.status) cases.where('cases.status', query.status)
   if (query.stage) cases.whereIn('cases.status', statesOfStage(query.stage))
-  if (query.q) {
-    const like = escapeLike(query.q)
-    const columns = staff ? STAFF_SEARCH : CLIENT_SEARCH
-    cases.where((where) => {
-      for (const column of columns) where.orWhere(`cases.${column}`, 'like', like)
-    })
+  if (query.safetyCritical !== undefined) cases.where('cases.safetyCritical', query.safetyCritical)
+  if (query.material) {
+    cases.where('cases.material', 'like', `${query.material.replace(/[\\%_]/g, '\\$&')}%`)
   }
+  if (query.overdue) {
+    cases.where('cases.dueDate', '<', today).whereNotIn('cases.status', FINISHED_STATES)
+  }
+  if (query.investigatorId) {
+    const person = query.investigatorId
+    cases.where((who) =>
+      who
+        .where('cases.leadInvestigatorId', person)
+        .orWhereExists((co) =>
+          co
+            .select('case_co_investigators.case_id')
+            .from('case_co_investigators')
+            .where('case_co_investigators.user_id', person)
+            .whereRaw('case_co_investigators.case_id = cases.id'),
+        ),
+    )
+  }
+  if (query.mechanism) {
+    const mechanism = query.mechanism
+    cases.whereExists((terms) =>
+      terms
+        .select('case_terms.case_id')
+        .from('case_terms')
+        .where({ 'case_terms.kind': 'mechanism', 'case_terms.term': mechanism })
+        .whereRaw('case_terms.case_id = cases.id'),
+    )
+  }
+  if (query.q) applySearch(cases, planSearch(query.q))
+}
+
+/** The filtered cases in the person's scope, before paging (shared with the dashboard). */
+export function casesInScope(ctx: ServiceContext, query: CaseListQuery, today: string) {
+  const cases = ctx.db('cases')
+  const scope = organisationScope(ctx.actor)
+  if (scope !== undefined) cases.where('cases.organisationId', scope)
+  applyFilters(cases, query, today)
   return cases
+}
+
+const STAFF_FILTERS = [
+  'status',
+  'investigatorId',
+  'overdue',
+  'safetyCritical',
+  'material',
+  'mechanism',
+] as const
+
+/** Clients filter by their plain stages and search; the working filters are for staff. */
+function checkClientFilters(ctx: ServiceContext, query: CaseListQuery): void {
+  if (isStaff(ctx.actor)) return
+  const used = STAFF_FILTERS.filter((filter) => query[filter] !== undefined)
+  if (used.length === 0) return
+  const message = 'Filter by stage, or search by number, title, component or your reference.'
+  throw new ValidationError(
+    message,
+    used.map((path) => ({ path, message })),
+  )
 }
 
 /** One page of cases: staff see the working summary, clients their plain status lines. */
 export async function listCases(
-  { actor, db }: ServiceContext,
+  ctx: ServiceContext,
   query: CaseListQuery,
+  now: Date = new Date(),
 ): Promise<{ data: CaseSummary[] | ClientCaseView[]; page: Page }> {
-  const staff = isStaff(actor)
-  const cases = filtered(db, query, organisationScope(actor), staff)
+  checkClientFilters(ctx, query)
+  const cases = casesInScope(ctx, query, todayIso(now))
   const [{ total }] = (await cases.clone().count({ total: '*' })) as [{ total: number }]
-  const rows = await db('cases')
+  const rows = await cases
     .join('organisations', 'organisations.id', 'cases.organisationId')
     .leftJoin('users as lead', 'lead.id', 'cases.leadInvestigatorId')
     .select(
@@ -45,11 +113,10 @@ export async function listCases(
       'organisations.name as organisationName',
       'lead.name as leadInvestigatorName',
     )
-    .whereIn('cases.id', cases.clone().select('cases.id'))
-    .orderBy('cases.createdAt', 'desc')
-    .orderBy('cases.id', 'desc')
+    .orderBy(SORT_COLUMNS[query.sort], query.order)
+    .orderBy('cases.id', query.order)
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize)
   const page: Page = { number: query.page, size: query.pageSize, total: Number(total) }
-  return { data: staff ? rows.map(toSummary) : rows.map(toClientView), page }
+  return { data: isStaff(ctx.actor) ? rows.map(toSummary) : rows.map(toClientView), page }
 }

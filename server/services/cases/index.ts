@@ -16,6 +16,7 @@ import { findCase, toClientView, toDetail, type CaseRecord } from './case-record
 import { checkCaseRecord } from './case-checks'
 import { listCases } from './case-list'
 import { nextCaseNumber } from './case-number'
+import { writeCaseTerms } from './case-terms'
 import {
   caseColumns,
   changedFields,
@@ -64,6 +65,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
       })) as number[]
       const caseId = newId as number
       await replaceCoInvestigators(trx, caseId, input.coInvestigatorIds)
+      await writeCaseTerms(trx, caseId, input)
       await recordAudit(trx, {
         caseId,
         actorId: actor.id,
@@ -104,6 +106,11 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
         .update({ ...columns, version: current.version + 1, updatedAt: trx.fn.now() })
       if (fields.includes('coInvestigatorIds')) {
         await replaceCoInvestigators(trx, caseId, after.coInvestigatorIds)
+      }
+      if (
+        ['component', 'material', 'mechanisms'].some((f) => fields.includes(f as keyof CaseFields))
+      ) {
+        await writeCaseTerms(trx, caseId, after)
       }
       await recordAudit(trx, {
         caseId,
@@ -148,7 +155,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
   }
 
   function list(ctx: ServiceContext, query: CaseListQuery) {
-    return listCases(ctx, query)
+    return listCases(ctx, query, clock())
   }
 
   return { load, view, create, update, changeStatus, list }

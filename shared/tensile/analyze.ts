@@ -8,7 +8,13 @@ import { maximumForce, type MaximumForcePoint } from './maximum-force'
 import type { TensileResult } from './result'
 import { defaultHardeningRange, strainHardening } from './strain-hardening'
 import { trueStressStrain } from './true-curve'
-import type { AnalysisOptions, EngineeringCurve, ImportOptions, ResolvedGeometry } from './types'
+import type {
+  AnalysisOptions,
+  EngineeringCurve,
+  ImportOptions,
+  RecordSource,
+  ResolvedGeometry,
+} from './types'
 import { offsetYieldStrength, proportionalLimit, totalExtensionStrength } from './yield-strength'
 
 const DEFAULT_OFFSET_PCT = 0.2
@@ -153,10 +159,10 @@ export function analyseCurve(
 
 /** Reads a delimited record and analyses it: the one call the server and the command line make. */
 export function analyseRecord(
-  text: string,
+  source: RecordSource,
   options: ImportOptions & AnalysisOptions = {},
 ): TensileResult {
-  const record = importRecord(text, options)
+  const record = importRecord(source, options)
   const result = analyseCurve(buildCurve(record), options)
   return { ...result, warnings: [...record.warnings, ...result.warnings] }
 }

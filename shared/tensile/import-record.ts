@@ -8,6 +8,7 @@ import { readPreambleGeometry } from './preamble'
 import type {
   ColumnRole,
   ImportOptions,
+  RecordSource,
   ResolvedGeometry,
   TensileRecord,
   UsedColumn,
@@ -92,7 +93,8 @@ function bodyColumn(column: UsedColumn): BodyColumn {
  * Reads a delimited tensile record: dialect, preamble geometry, header and units, then the
  * numeric body of the columns in use, converted to N, mm, strain fraction, MPa and s.
  */
-export function importRecord(text: string, options: ImportOptions = {}): TensileRecord {
+export function importRecord(source: RecordSource, options: ImportOptions = {}): TensileRecord {
+  const text = typeof source === 'string' ? source : [...source].join('')
   if (!/\S/.test(text)) throw new TensileInputError('The file is empty')
   const lines = text.split('\n')
   const dialect = detectDialect(lines, options)

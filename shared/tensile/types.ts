@@ -1,3 +1,9 @@
+/**
+ * A record's text: whole, or in chunks in order (a file read piece by piece), so that a long
+ * record never has to be held as one string.
+ */
+export type RecordSource = string | Iterable<string>
+
 /** Column separators the importer recognises, in the order it prefers them. */
 export type Delimiter = '\t' | ';' | ',' | '|'
 export type DecimalSeparator = '.' | ','

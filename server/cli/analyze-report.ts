@@ -63,7 +63,9 @@ function conformityLines(conformity: ConformityResult | null, units: UnitSystem)
 function fitLine(result: SpecimenResult, units: UnitSystem): string {
   const fit = result.modulusFit
   const range = `${formatValue(fit.fromMPa, 'strength', units)} to ${formatValue(fit.toMPa, 'strength', units)}`
-  return row('Elastic fit', `${range}, ${fit.points} points, R² ${fit.rSquared.toFixed(5)}`)
+  const how = fit.chosenBy === 'automatic' ? 'automatic window' : 'fit range given'
+  const points = `points ${fit.fromPoint} to ${fit.toPoint}`
+  return row('Elastic fit', `${range} (${how}, ${points}, R² ${fit.rSquared.toFixed(5)})`)
 }
 
 /** One specimen: a line per property, rounded as ISO 6892-1 reports them (or US customary). */

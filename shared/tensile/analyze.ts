@@ -114,6 +114,23 @@ function atFracture(c: CompensatedCurve, fracture: number, geometry: ResolvedGeo
   }
 }
 
+function fitWindow(c: CompensatedCurve): TensileResult['modulusFit'] {
+  const { fit } = c
+  const recordedStrainPct = (i: number) => (c.strain[i]! + c.originStrain) * 100
+  return {
+    fromMPa: fit.fromMPa,
+    toMPa: fit.toMPa,
+    rSquared: fit.rSquared,
+    points: fit.points,
+    chosenBy: fit.chosenBy,
+    rounded: fit.rounded,
+    fromPoint: fit.fromIndex + 1,
+    toPoint: fit.toIndex + 1,
+    fromStrainPct: recordedStrainPct(fit.fromIndex),
+    toStrainPct: recordedStrainPct(fit.toIndex),
+  }
+}
+
 /** Every property of one engineering curve (see result.ts for the meaning of each key). */
 export function analyseCurve(
   curve: EngineeringCurve,
@@ -128,12 +145,7 @@ export function analyseCurve(
   const maximum = atMaximumForce(c, top, curve.geometry)
   return {
     modulusGPa: c.modulusMPa / 1000,
-    modulusFit: {
-      fromMPa: c.fit.fromMPa,
-      toMPa: c.fit.toMPa,
-      rSquared: c.fit.rSquared,
-      points: c.fit.points,
-    },
+    modulusFit: fitWindow(c),
     strainOriginShiftPct: c.originStrain * 100,
     proportionalLimitMPa: proportionalLimit(
       c.strain,

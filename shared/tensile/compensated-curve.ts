@@ -26,6 +26,11 @@ export function curveAfterFit(
     range === undefined
       ? fitModulusAutomatically(curve.strain, curve.stress, peak)
       : fitModulusInRange(curve.strain, curve.stress, peak, range)
+  if (fit.rounded) {
+    warnings.push(
+      `No sharp end to the linear part: E was fitted over the straight start of the curve, ${fit.fromMPa.toFixed(0)} to ${fit.toMPa.toFixed(0)} MPa`,
+    )
+  }
   if (fit.rSquared < WARN_BELOW_R_SQUARED) {
     warnings.push(`The elastic fit is not straight (R² = ${fit.rSquared.toFixed(4)})`)
   }

@@ -1,5 +1,5 @@
 import { TensileInputError } from './errors'
-import { fitLine, WindowFitter, type LineFit } from './linear-fit'
+import { BlockFitter, fitLine, type LineFit } from './linear-fit'
 import type { FitRange } from './types'
 
 /** The elastic line of the test and the samples it was fitted to. */
@@ -12,18 +12,27 @@ export interface ModulusFit {
   toMPa: number
   rSquared: number
   points: number
+  /** How the window was found: searched by the engine, or the fit range the user gave. */
+  chosenBy: 'automatic' | 'fit range'
+  /** The search found no sharp end to the linear part and fitted the straight start instead. */
+  rounded: boolean
 }
 
 /*
  * Window search settings (our own choice, tuned on the open 42CrMoS4 records and on
- * Ramberg–Osgood curves): a candidate window spans a quarter of the peak stress and at least
- * 8 samples; it is straight when the slopes of its halves differ by at most 2 %; the settled
- * fit keeps samples within 0.2 % of the elastic strain of the line. At most about 4000 start
- * positions are tried, so a million-point record costs no more than a small one.
+ * Ramberg–Osgood curves with n from 5 to 25): a candidate window spans a fraction of the peak
+ * stress and at least 8 samples; it is straight when the slopes of its halves differ by at most
+ * 2 %. A curve whose straightest window still bends, beyond its scatter, by more than 1 % has no
+ * sharp end to its linear part (austenitic stainless steels, many aluminium alloys), so the
+ * search halves the span, down to 1/64 of the peak stress, until it finds the straight start.
+ * The settled fit keeps samples within 0.2 % of the elastic strain of the line. The running
+ * sums are kept per block so that about 4000 window starts cover any record.
  */
-const WINDOW_SPAN = 0.25
+const SPAN_FRACTIONS = [1 / 4, 1 / 8, 1 / 16, 1 / 32, 1 / 64]
 const WINDOW_MIN_POINTS = 8
 const MAX_BEND = 0.02
+const KNEE_SIGNIFICANCE = 3
+const KNEE_TRIM = 0.01
 const SETTLE_TOLERANCE = 0.002
 const SETTLE_ROUNDS = 5
 const MAX_WINDOW_STARTS = 4000
@@ -32,25 +41,49 @@ interface Window {
   from: number
   to: number
   line: LineFit
-  /** Relative difference between the slopes of the window's two halves. */
+  /** Largest difference between the slopes of the window's thirds, relative to its slope. */
   bend: number
+  /** How much flatter the upper third is than the middle one, relative to the slope. */
+  knee: number
+  /** Standard error of the knee from the scatter of the two thirds. */
+  kneeError: number
 }
 
-function candidateWindows(strain: Float64Array, stress: Float64Array, peak: number): Window[] {
-  const fitter = new WindowFitter(strain, stress, peak + 1)
-  const span = WINDOW_SPAN * stress[peak]!
+/*
+ * Thirds, not halves: a window that starts in a toe and ends in the rounding into yield has a
+ * flat lower and a flat upper part, which two halves can balance into a false straight line.
+ */
+function windowOf(fitter: BlockFitter, fromBlock: number, toBlock: number): Window {
+  const first = fromBlock + Math.floor((toBlock - fromBlock) / 3)
+  const second = fromBlock + Math.floor((2 * (toBlock - fromBlock)) / 3)
+  const line = fitter.fit(fromBlock, toBlock)
+  const [lower, middle, upper] = [
+    fitter.fit(fromBlock, first),
+    fitter.fit(first, second),
+    fitter.fit(second, toBlock),
+  ]
+  const slopes = [lower.slope, middle.slope, upper.slope]
+  return {
+    from: fitter.start(fromBlock),
+    to: fitter.start(toBlock) - 1,
+    line,
+    bend: (Math.max(...slopes) - Math.min(...slopes)) / Math.abs(line.slope),
+    knee: (middle.slope - upper.slope) / Math.abs(line.slope),
+    kneeError: Math.hypot(middle.slopeError, upper.slopeError) / Math.abs(line.slope),
+  }
+}
+
+/** Windows over the rising curve, one per start block, each spanning `span` MPa of stress. */
+function candidateWindows(fitter: BlockFitter, stress: Float64Array, span: number): Window[] {
   const windows: Window[] = []
-  const step = Math.max(1, Math.floor(peak / MAX_WINDOW_STARTS))
-  let to = 0
-  for (let from = 0; from <= peak; from += step) {
-    to = Math.max(to, from + WINDOW_MIN_POINTS - 1)
-    while (to <= peak && stress[to]! < stress[from]! + span) to++
-    if (to > peak) break
-    const middle = Math.floor((from + to) / 2)
-    const line = fitter.fit(from, to)
-    const bend =
-      Math.abs(fitter.fit(from, middle).slope - fitter.fit(middle, to).slope) / line.slope
-    windows.push({ from, to, line, bend })
+  const minBlocks = Math.max(3, Math.ceil(WINDOW_MIN_POINTS / fitter.stride))
+  let toBlock = 0
+  for (let fromBlock = 0; fromBlock < fitter.blocks; fromBlock++) {
+    const base = stress[fitter.start(fromBlock)]!
+    toBlock = Math.max(toBlock, fromBlock + minBlocks)
+    while (toBlock <= fitter.blocks && stress[fitter.start(toBlock) - 1]! < base + span) toBlock++
+    if (toBlock > fitter.blocks) break
+    windows.push(windowOf(fitter, fromBlock, toBlock))
   }
   return windows
 }
@@ -60,17 +93,40 @@ function candidateWindows(strain: Float64Array, stress: Float64Array, peak: numb
  * the lower to the upper half of a window, which rejects both a toe and a stiff seating
  * transient at the start of a record as well as the rounding into yield.
  */
-function steepestStraight(windows: readonly Window[]): number {
+function steepestStraight(windows: readonly Window[]): Window {
   let leastBend = Number.POSITIVE_INFINITY
   for (const w of windows) if (w.line.slope > 0) leastBend = Math.min(leastBend, w.bend)
   const limit = Math.max(MAX_BEND, leastBend * 2)
-  let best = -1
-  for (let k = 0; k < windows.length; k++) {
-    const w = windows[k]!
+  let best = windows[0]!
+  for (const w of windows) {
     if (w.bend > limit || !(w.line.slope > 0)) continue
-    if (best < 0 || w.line.slope > windows[best]!.line.slope) best = k
+    if (!(best.line.slope > 0) || best.bend > limit || w.line.slope > best.line.slope) best = w
   }
-  return Math.max(best, 0)
+  return best
+}
+
+/** Rounded: not straight, and the top third flatter than the middle, beyond the scatter. */
+function isRounded(window: Window): boolean {
+  return window.bend > MAX_BEND && window.knee > KNEE_SIGNIFICANCE * window.kneeError
+}
+
+/**
+ * The straight core of the elastic part, searched at ever finer spans while the curve is
+ * rounded; `rounded` says the coarsest span found no sharp linear part.
+ */
+function elasticCore(strain: Float64Array, stress: Float64Array, peak: number) {
+  const stride = Math.max(1, Math.ceil((peak + 1) / MAX_WINDOW_STARTS))
+  const fitter = new BlockFitter(strain, stress, peak + 1, stride)
+  let core: Window | null = null
+  let rounded = false
+  for (const fraction of SPAN_FRACTIONS) {
+    const windows = candidateWindows(fitter, stress, fraction * stress[peak]!)
+    if (windows.length === 0) break
+    core = steepestStraight(windows)
+    if (!isRounded(core)) break
+    rounded = true
+  }
+  return core === null ? null : { core, rounded }
 }
 
 function strainResidual(
@@ -129,7 +185,51 @@ function settledRange(
   return [from, to]
 }
 
-function toModulusFit(stress: Float64Array, from: number, to: number, line: LineFit): ModulusFit {
+/**
+ * How much faster the slope falls from the middle to the upper third than from the lower to
+ * the middle one, relative to the slope, with its standard error. The rounding into yield
+ * falls faster and faster; a stiff seating transient at the start falls and then levels off.
+ */
+function fallingFaster(strain: Float64Array, stress: Float64Array, from: number, to: number) {
+  const length = to - from + 1
+  const first = from + Math.floor(length / 3)
+  const second = from + Math.floor((2 * length) / 3)
+  const thirds = [
+    fitLine(strain, stress, from, first - 1),
+    fitLine(strain, stress, first, second - 1),
+    fitLine(strain, stress, second, to),
+  ]
+  const [lower, middle, upper] = thirds
+  if (lower == null || middle == null || upper == null)
+    return { knee: 0, acceleration: 0, error: Number.POSITIVE_INFINITY }
+  const scale = Math.abs(middle.slope)
+  return {
+    knee: (middle.slope - upper.slope) / scale,
+    acceleration: (2 * middle.slope - lower.slope - upper.slope) / scale,
+    error: Math.hypot(lower.slopeError, 2 * middle.slopeError, upper.slopeError) / scale,
+  }
+}
+
+/**
+ * Settling grows the window as far as the scatter allows, which on a noisy rounded curve
+ * reaches into the rounding: the top is cut back while the slope of the window falls faster
+ * and faster, beyond the scatter.
+ */
+function withoutKnee(strain: Float64Array, stress: Float64Array, from: number, to: number): number {
+  while (to - from + 1 > 2 * WINDOW_MIN_POINTS) {
+    const { knee, acceleration, error } = fallingFaster(strain, stress, from, to)
+    if (!(knee > KNEE_TRIM && acceleration > KNEE_SIGNIFICANCE * error)) break
+    to -= Math.max(1, Math.floor((to - from + 1) * 0.1))
+  }
+  return to
+}
+
+function toModulusFit(
+  stress: Float64Array,
+  [from, to]: [number, number],
+  line: LineFit,
+  how: Pick<ModulusFit, 'chosenBy' | 'rounded'>,
+): ModulusFit {
   let low = Number.POSITIVE_INFINITY
   let high = Number.NEGATIVE_INFINITY
   for (let i = from; i <= to; i++) {
@@ -145,6 +245,7 @@ function toModulusFit(stress: Float64Array, from: number, to: number, line: Line
     toMPa: high,
     rSquared: line.rSquared,
     points: line.points,
+    ...how,
   }
 }
 
@@ -158,16 +259,16 @@ export function fitModulusAutomatically(
   stress: Float64Array,
   peak: number,
 ): ModulusFit {
-  const windows = candidateWindows(strain, stress, peak)
-  if (windows.length === 0) {
+  const found = elasticCore(strain, stress, peak)
+  if (found === null) {
     throw new TensileInputError('Too few points before maximum force to fit the elastic slope')
   }
-  const core = windows[steepestStraight(windows)]!
-  const [from, to] = settledRange(strain, stress, peak, core.from, core.to)
+  const [from, settledTo] = settledRange(strain, stress, peak, found.core.from, found.core.to)
+  const to = found.rounded ? withoutKnee(strain, stress, from, settledTo) : settledTo
   const line = fitLine(strain, stress, from, to)
   if (line === null || !(line.slope > 0))
     throw new TensileInputError('No rising elastic part found')
-  return toModulusFit(stress, from, to, line)
+  return toModulusFit(stress, [from, to], line, { chosenBy: 'automatic', rounded: found.rounded })
 }
 
 /** Elastic slope over a range the user chose (ASTM E111), on the rising curve before maximum force. */
@@ -189,5 +290,5 @@ export function fitModulusInRange(
   if (line === null || line.points < 3 || !(line.slope > 0)) {
     throw new TensileInputError('The fit range holds fewer than 3 points of the rising curve')
   }
-  return toModulusFit(stress, from!, to!, line)
+  return toModulusFit(stress, [from!, to!], line, { chosenBy: 'fit range', rounded: false })
 }

@@ -12,7 +12,18 @@ function result(overrides: Partial<TensileResult> = {}): TensileResult {
   const area = (Math.PI / 4) * 10 ** 2 // d0 = 10 mm, so 5.65√S0 = 50.07 mm and 4D = 40 mm
   return {
     modulusGPa: 205,
-    modulusFit: { fromMPa: 40, toMPa: 250, rSquared: 0.9999, points: 100 },
+    modulusFit: {
+      fromMPa: 40,
+      toMPa: 250,
+      rSquared: 0.9999,
+      points: 100,
+      chosenBy: 'automatic',
+      rounded: false,
+      fromPoint: 20,
+      toPoint: 119,
+      fromStrainPct: 0.02,
+      toStrainPct: 0.12,
+    },
     strainOriginShiftPct: 0,
     proportionalLimitMPa: 300,
     offsetPct: 0.2,

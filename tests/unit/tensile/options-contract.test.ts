@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs'
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import {
   analyseSpecimens,
   checkTensileOptions,
@@ -18,7 +18,9 @@ import {
   OUTPUT_FLAGS,
 } from '../../../server/cli/analyze-options'
 import { OPEN_RECORDS_DIR } from '../../helpers/tensile/open-records'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 const analysisFlags = Object.keys(FLAG_SPEC).filter(
   (flag) => !(OUTPUT_FLAGS as readonly string[]).includes(flag),

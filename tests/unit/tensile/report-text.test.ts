@@ -1,8 +1,10 @@
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { closingCaution, MPA_PER_KSI, PROPERTY_CATALOGUE } from '../../../shared/tensile'
 import { labValues, OPEN_RECORDS_DIR } from '../../helpers/tensile/open-records'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 const files = ['46NT71.csv', '46NT73.csv'].map((f) => path.join(OPEN_RECORDS_DIR, f))
 

@@ -1,7 +1,9 @@
-import { closeSync, openSync, readSync } from 'node:fs'
-import { TensileInputError } from '../../shared/tensile'
+import { closeSync, openSync, readSync, statSync } from 'node:fs'
+import { StringDecoder } from 'node:string_decoder'
+import { TensileInputError, type RecordChunks } from '../../shared/tensile'
 
-const CHUNK_BYTES = 1024 * 1024
+/* Chunks below a megabyte stay ordinary heap strings, which V8 searches fastest (measured). */
+const CHUNK_BYTES = 64 * 1024
 
 function readable<T>(work: () => T): T {
   try {
@@ -13,22 +15,26 @@ function readable<T>(work: () => T): T {
 }
 
 /**
- * A file as the engine's record source: UTF-8 text in chunks of about a megabyte, read when
+ * A file as the engine's record source: UTF-8 text in chunks of 64 kB, read when
  * the engine asks for them, so a long record is never held whole in memory.
  */
-export function fileChunks(file: string): Iterable<string> {
+export function fileChunks(file: string): RecordChunks {
   return {
+    // Bytes are an upper bound of the characters of UTF-8 text.
+    get characters() {
+      return readable(() => statSync(file).size)
+    },
     *[Symbol.iterator]() {
       const descriptor = readable(() => openSync(file, 'r'))
-      const decoder = new TextDecoder('utf-8')
-      const buffer = new Uint8Array(CHUNK_BYTES)
+      const decoder = new StringDecoder('utf8')
+      const buffer = Buffer.alloc(CHUNK_BYTES)
       try {
         for (;;) {
           const read = readable(() => readSync(descriptor, buffer, 0, CHUNK_BYTES, null))
           if (read === 0) break
-          yield decoder.decode(buffer.subarray(0, read), { stream: true })
+          yield decoder.write(buffer.subarray(0, read))
         }
-        yield decoder.decode()
+        yield decoder.end()
       } finally {
         closeSync(descriptor)
       }

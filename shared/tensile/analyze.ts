@@ -7,7 +7,7 @@ import { importRecord } from './import-record'
 import { maximumForce, type MaximumForcePoint } from './maximum-force'
 import type { TensileResult } from './result'
 import { defaultHardeningRange, strainHardening } from './strain-hardening'
-import { trueStressStrain } from './true-curve'
+import { trueValuesAt } from './true-curve'
 import type {
   AnalysisOptions,
   EngineeringCurve,
@@ -92,14 +92,14 @@ function hardening(
 }
 
 function atMaximumForce(c: CompensatedCurve, top: MaximumForcePoint, geometry: ResolvedGeometry) {
-  const trueCurve = trueStressStrain(c.strain, c.stress, top.index)
+  const atTop = trueValuesAt(c.strain, c.stress, top.index)
   return {
     tensileStrengthMPa: top.stressMPa,
     maximumForceN: geometry.areaMm2 === null ? null : top.stressMPa * geometry.areaMm2,
     uniformElongationPct: (top.strain - top.stressMPa / c.modulusMPa) * 100,
     totalElongationAtMaxForcePct: top.strain * 100,
-    trueStressAtMaxForceMPa: trueCurve.trueStressMPa[top.index]!,
-    trueStrainAtMaxForce: trueCurve.trueStrain[top.index]!,
+    trueStressAtMaxForceMPa: atTop.trueStressMPa,
+    trueStrainAtMaxForce: atTop.trueStrain,
   }
 }
 
@@ -136,8 +136,13 @@ export function analyseCurve(
   curve: EngineeringCurve,
   options: AnalysisOptions = {},
 ): TensileResult {
+  return analyse(curve, options, false)
+}
+
+/** With `reuse`, the curve's strain array is overwritten by the compensated strain. */
+function analyse(curve: EngineeringCurve, options: AnalysisOptions, reuse: boolean): TensileResult {
   const warnings: string[] = []
-  const c = curveAfterFit(curve, options.fitRange, warnings)
+  const c = curveAfterFit(curve, options.fitRange, warnings, reuse)
   const top = maximumForce(c.strain, c.stress)
   const fracture = fractureIndex(c.stress, top.index)
   const yields = yieldStrengths(c, options.offsetsPct ?? [DEFAULT_OFFSET_PCT], fracture, warnings)
@@ -175,6 +180,7 @@ export function analyseRecord(
   options: ImportOptions & AnalysisOptions = {},
 ): TensileResult {
   const record = importRecord(source, options)
-  const result = analyseCurve(buildCurve(record), options)
+  // The record is ours alone: its arrays become the curve, converted in place.
+  const result = analyse(buildCurve(record, true), options, true)
   return { ...result, warnings: [...record.warnings, ...result.warnings] }
 }

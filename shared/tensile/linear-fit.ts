@@ -30,6 +30,37 @@ function lineFromSums(s: Sums): LineFit {
 }
 
 /**
+ * Sums for a least-squares line built one point at a time, shifted by the first point so that
+ * large offsets do not eat the precision of the sums.
+ */
+export class LineSums {
+  private readonly s: Sums = { n: 0, x: 0, y: 0, xx: 0, xy: 0, yy: 0 }
+  private x0 = 0
+  private y0 = 0
+
+  add(x: number, y: number): void {
+    const s = this.s
+    if (s.n === 0) [this.x0, this.y0] = [x, y]
+    const dx = x - this.x0
+    const dy = y - this.y0
+    s.n++
+    s.x += dx
+    s.y += dy
+    s.xx += dx * dx
+    s.xy += dx * dy
+    s.yy += dy * dy
+  }
+
+  /** The line, or null with fewer than two points or no spread in x. */
+  line(): LineFit | null {
+    if (this.s.n < 2) return null
+    const line = lineFromSums(this.s)
+    if (!Number.isFinite(line.slope)) return null
+    return { ...line, intercept: this.y0 + line.intercept - line.slope * this.x0 }
+  }
+}
+
+/**
  * Least squares over the samples whose index passes `include`, between `from` and `to`
  * inclusive. The values are shifted by the first sample before summing so that large offsets
  * do not eat the precision of the sums.

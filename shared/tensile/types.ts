@@ -1,8 +1,13 @@
 /**
- * A record's text: whole, or in chunks in order (a file read piece by piece), so that a long
- * record never has to be held as one string.
+ * A record's text in chunks, in order (a file read piece by piece), with the record's length
+ * in characters when known (an upper bound will do), so its columns can be sized once.
  */
-export type RecordSource = string | Iterable<string>
+export interface RecordChunks extends Iterable<string> {
+  readonly characters?: number
+}
+
+/** A record's text: whole, or in chunks so that a long record is never held as one string. */
+export type RecordSource = string | RecordChunks
 
 /** Column separators the importer recognises, in the order it prefers them. */
 export type Delimiter = '\t' | ';' | ',' | '|'

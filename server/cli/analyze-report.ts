@@ -1,164 +1,107 @@
 import {
-  ISO_6892_ROUNDING,
-  MPA_PER_KSI,
-  MPA_PER_PSI,
-  roundToIncrement,
+  closingCaution,
+  conformityQuantity,
+  formatSpread,
+  formatValue,
+  PROPERTY_CATALOGUE,
+  propertyLabel,
+  reportSummary,
+  specimenResults,
   type ConformityResult,
-  type PropertySummary,
-  type TensileResult,
+  type PropertyEntry,
+  type SpecimenResult,
+  type TensileReport,
+  type UnitSystem,
+  withoutControlCharacters,
 } from '../../shared/tensile'
 
-type Kind =
-  | 'strength'
-  | 'modulus'
-  | 'elongation'
-  | 'yieldPoint'
-  | 'reduction'
-  | 'exponent'
-  | 'energy'
-  | 'count'
+/* The readable report, built only from the shared catalogue, formats and cautions. */
 
-interface Row {
-  label: string
-  value: number | null
-  kind: Kind
+const LABEL_WIDTH = 44
+
+function row(label: string, text: string): string {
+  return `  ${label.padEnd(LABEL_WIDTH)}${text}`
 }
 
-/** Strength and modulus rows in SI; converted for `--units us`. */
-function rows(result: TensileResult): Row[] {
-  return [
-    { label: 'Elastic slope E', value: result.modulusGPa, kind: 'modulus' },
-    { label: 'Proportional limit', value: result.proportionalLimitMPa, kind: 'strength' },
-    ...Object.entries(result.yieldStrengthsMPa).map(([offset, value]): Row => ({
-      label: `Offset yield strength Rp${offset}`,
-      value,
-      kind: 'strength',
-    })),
-    { label: 'Proof strength Rt0.5', value: result.rt05MPa, kind: 'strength' },
-    { label: 'Upper yield strength ReH', value: result.upperYieldMPa, kind: 'strength' },
-    { label: 'Lower yield strength ReL', value: result.lowerYieldMPa, kind: 'strength' },
-    {
-      label: 'Yield-point elongation Ae',
-      value: result.yieldPointElongationPct,
-      kind: 'yieldPoint',
-    },
-    { label: 'Tensile strength Rm', value: result.tensileStrengthMPa, kind: 'strength' },
-    { label: 'Uniform elongation Ag', value: result.uniformElongationPct, kind: 'elongation' },
-    {
-      label: 'Total elongation at max. force Agt',
-      value: result.totalElongationAtMaxForcePct,
-      kind: 'elongation',
-    },
-    { label: 'Fracture strength', value: result.fractureStrengthMPa, kind: 'strength' },
-    {
-      label: 'Elongation after fracture A (curve)',
-      value: result.elongationAfterFracturePct,
-      kind: 'elongation',
-    },
-    {
-      label: 'Elongation after fracture A (Lu)',
-      value: result.elongationAfterFractureFromLuPct,
-      kind: 'elongation',
-    },
-    { label: 'Reduction of area Z', value: result.reductionOfAreaPct, kind: 'reduction' },
-    {
-      label: 'Strain-hardening exponent n',
-      value: result.strainHardeningExponent,
-      kind: 'exponent',
-    },
-    { label: 'Strength coefficient K', value: result.strengthCoefficientMPa, kind: 'strength' },
-    { label: 'Modulus of resilience', value: result.resilienceMJm3, kind: 'energy' },
-    { label: 'Toughness', value: result.toughnessMJm3, kind: 'energy' },
-    { label: 'Points', value: result.points, kind: 'count' },
-  ]
+function propertyRows(result: SpecimenResult, units: UnitSystem): string[] {
+  return PROPERTY_CATALOGUE.filter((p) => p.inTable).flatMap((property: PropertyEntry) => {
+    if (property.key === 'yieldStrengthsMPa')
+      return Object.entries(result.yieldStrengthsMPa).map(([offset, value]) =>
+        row(propertyLabel(property, offset), formatValue(value, property.quantity, units)),
+      )
+    const value = result[property.key]
+    const shown = typeof value === 'number' || value === null ? value : null
+    return [row(propertyLabel(property), formatValue(shown, property.quantity, units))]
+  })
 }
 
-const SI_UNITS: Readonly<Record<Kind, string>> = {
-  strength: 'MPa',
-  modulus: 'GPa',
-  elongation: '%',
-  yieldPoint: '%',
-  reduction: '%',
-  exponent: '',
-  energy: 'MJ/m³',
-  count: '',
-}
-const US_UNITS: Readonly<Record<Kind, string>> = {
-  strength: 'ksi',
-  modulus: 'Msi',
-  elongation: '%',
-  yieldPoint: '%',
-  reduction: '%',
-  exponent: '',
-  energy: 'in·lbf/in³',
-  count: '',
-}
-
-/* US customary increments are common practice: 0.1 ksi, 0.1 Msi; 1 in·lbf/in³ (= 1 psi). */
-function shown(value: number, kind: Kind, units: 'si' | 'us'): string {
-  const r = ISO_6892_ROUNDING
-  const us = units === 'us'
-  switch (kind) {
-    case 'strength':
-      return us
-        ? roundToIncrement(value / MPA_PER_KSI, 0.1).toFixed(1)
-        : roundToIncrement(value, r.strengthMPa).toFixed(0)
-    case 'modulus':
-      return us
-        ? roundToIncrement(value / MPA_PER_KSI, 0.1).toFixed(1)
-        : roundToIncrement(value, r.modulusGPa).toFixed(0)
-    case 'elongation':
-      return roundToIncrement(value, r.elongationPct).toFixed(1)
-    case 'yieldPoint':
-      return roundToIncrement(value, r.yieldPointElongationPct).toFixed(1)
-    case 'reduction':
-      return roundToIncrement(value, r.reductionOfAreaPct).toFixed(0)
-    case 'exponent':
-      return value.toFixed(3)
-    case 'energy':
-      return us ? roundToIncrement(value / MPA_PER_PSI, 1).toFixed(0) : value.toPrecision(3)
-    case 'count':
-      return String(value)
-  }
-}
-
-function conformityLines(conformity: ConformityResult | null): string[] {
+function conformityLines(conformity: ConformityResult | null, units: UnitSystem): string[] {
   if (conformity === null) return []
   const spec = conformity.specification
+  const edition = spec.edition === null ? 'edition not stated' : `edition ${spec.edition}`
   const items = conformity.items.map((item) => {
-    const value = item.value === null ? '—' : item.value.toFixed(1)
-    const note = item.note === undefined ? '' : ` (${item.note})`
-    return `    ${item.property} ${item.bound} ${item.limit}: ${value} → ${item.verdict}${note}`
+    const quantity = conformityQuantity(item.property)
+    const show = (value: number | null) =>
+      quantity === null ? String(value ?? '—') : formatValue(value, quantity, units)
+    // U is the lab's own figure: shown one digit finer than the values, not rounded away.
+    const u =
+      item.uncertainty === null || quantity === null
+        ? ''
+        : ` (U ${formatSpread(item.uncertainty, quantity, units)})`
+    const note = item.note === undefined ? '' : `; ${item.note}`
+    const bound = item.bound === 'min' ? '≥' : '≤'
+    return `    ${item.property} ${bound} ${show(item.limit)}: ${show(item.value)}${u} → ${item.verdict}${note}`
   })
   return [
-    `  Conformity with ${spec.standard} ${spec.grade} [${spec.source}]: ${conformity.overall}`,
+    `  Conformity with ${spec.standard} ${spec.grade} (${edition}; ${spec.source}): ${conformity.overall}`,
+    `    ${conformity.caution}`,
     `    rule: ${conformity.rule}`,
     ...items,
   ]
 }
 
-/** The readable report: one line per property, rounded as ISO 6892-1 reports them. */
-export function formatTable(
-  result: TensileResult & { file: string; conformity: ConformityResult | null },
-  units: 'si' | 'us',
-): string {
-  const table = units === 'us' ? US_UNITS : SI_UNITS
-  const lines = rows(result).map(({ label, value, kind }) => {
-    const text = value === null ? '—' : `${shown(value, kind, units)} ${table[kind]}`.trim()
-    return `  ${label.padEnd(38)}${text}`
-  })
-  const warnings = result.warnings.map((warning) => `  warning: ${warning}`)
-  return [result.file, ...lines, ...conformityLines(result.conformity), ...warnings].join('\n')
+function fitLine(result: SpecimenResult, units: UnitSystem): string {
+  const fit = result.modulusFit
+  const range = `${formatValue(fit.fromMPa, 'strength', units)} to ${formatValue(fit.toMPa, 'strength', units)}`
+  const how = fit.chosenBy === 'automatic' ? 'automatic window' : 'fit range given'
+  const points = `points ${fit.fromPoint} to ${fit.toPoint}`
+  return row('Elastic fit', `${range} (${how}, ${points}, R² ${fit.rSquared.toFixed(5)})`)
 }
 
-/** Statistics over several specimens, full precision to four significant digits. */
-export function formatSummary(summary: {
-  specimens: number
-  properties: Record<string, PropertySummary>
-}): string {
-  const lines = Object.entries(summary.properties).map(([key, s]) => {
-    const sd = s.standardDeviation === null ? '—' : s.standardDeviation.toPrecision(3)
-    return `  ${key.padEnd(34)}mean ${s.mean.toPrecision(5)}  sd ${sd}  min ${s.min.toPrecision(5)}  max ${s.max.toPrecision(5)}`
+/** One specimen: a line per property, rounded as ISO 6892-1 reports them (or US customary). */
+export function formatSpecimen(result: SpecimenResult, units: UnitSystem): string {
+  return [
+    withoutControlCharacters(result.file),
+    ...propertyRows(result, units),
+    fitLine(result, units),
+    ...conformityLines(result.conformity, units),
+    ...result.warnings.map((warning) => `  warning: ${warning}`),
+  ].join('\n')
+}
+
+function summaryLines(report: TensileReport, units: UnitSystem): string[] {
+  const summary = reportSummary(report)
+  if (summary === null) return []
+  const offset = specimenResults(report)[0]?.offsetPct
+  const lines = PROPERTY_CATALOGUE.filter((p) => p.summarised).flatMap((property) => {
+    const s = summary.properties[property.key]
+    if (s === undefined) return []
+    const show = (value: number | null) => formatValue(value, property.quantity, units)
+    const sd = formatSpread(s.standardDeviation, property.quantity, units)
+    const text = `mean ${show(s.mean)}, sd ${sd}, min ${show(s.min)}, max ${show(s.max)} (${s.count})`
+    return [row(propertyLabel(property, offset), text)]
   })
-  return [`Summary of ${summary.specimens} specimens`, ...lines].join('\n')
+  return [`Summary of ${summary.specimens} specimens`, ...lines]
+}
+
+/** The whole readable report: each specimen, the summary of a set, and the closing caution. */
+export function formatReport(report: TensileReport, units: UnitSystem): string {
+  const results = specimenResults(report)
+  const spec = results[0]?.conformity?.specification ?? null
+  const summary = summaryLines(report, units)
+  return [
+    ...results.map((result) => formatSpecimen(result, units)),
+    ...(summary.length === 0 ? [] : [summary.join('\n')]),
+    closingCaution(spec),
+  ].join('\n\n')
 }

@@ -1,55 +1,20 @@
-import { readFileSync } from 'node:fs'
 import {
-  analyseRecord,
-  evaluateConformity,
+  analyseSpecimens,
   STARTER_SPECIFICATIONS,
-  summariseSpecimens,
   TensileInputError,
-  type ConformityResult,
-  type TensileResult,
+  withoutControlCharacters,
 } from '../../shared/tensile'
-import { parseCommandLine, USAGE, type CommandLine } from './analyze-options'
-import { formatSummary, formatTable } from './analyze-report'
+import { parseCommandLine, USAGE } from './analyze-options'
+import { formatReport } from './analyze-report'
+import { fileChunks } from './read-record'
 
 /*
  * Command-line entry, a public contract that lab staff script:
  *   npm run -s analyze -- FILE... [options]
+ * A thin wrapper over the engine's pipeline: flags become the engine's options object, files
+ * become record sources, and --json prints the pipeline's result as it is.
  * Bad input or usage exits with status 2 and one line on stderr; stdout stays empty.
  */
-
-/** Printed under every readable report: the figures are inputs to judgement, not a verdict. */
-export const CAUTION = [
-  'Computed from the record as given: results are only as good as the specimen measurements and',
-  'the calibration of the machine and extensometer. Conformity follows the stated decision rule;',
-  'check specification limits against the current edition of the standard, and leave conclusions',
-  'to the applicable codes, the client’s specifications and licensed professional judgment.',
-].join('\n')
-
-export type FileResult = TensileResult & { file: string; conformity: ConformityResult | null }
-
-function readText(file: string): string {
-  try {
-    return readFileSync(file, 'utf8')
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code ?? 'unreadable'
-    throw new TensileInputError(`Cannot read ${file} (${code})`)
-  }
-}
-
-function analyseFile(file: string, command: CommandLine): FileResult {
-  try {
-    const result = analyseRecord(readText(file), command.analysis)
-    const spec = command.specification
-    return {
-      file,
-      ...result,
-      conformity: spec === null ? null : evaluateConformity(result, spec, command.rule),
-    }
-  } catch (error) {
-    if (error instanceof TensileInputError) throw new TensileInputError(`${file}: ${error.message}`)
-    throw error
-  }
-}
 
 function specificationList(json: boolean): string {
   if (json) return JSON.stringify(STARTER_SPECIFICATIONS, null, 2)
@@ -62,22 +27,10 @@ function run(argv: readonly string[]): string {
   const command = parseCommandLine(argv)
   if (command === 'help') return USAGE
   if (command === 'list') return specificationList(argv.includes('--json'))
-  const results = command.files.map((file) => analyseFile(file, command))
-  if (results.length === 1) {
-    const [only] = results as [FileResult]
-    return command.json
-      ? JSON.stringify(only, null, 2)
-      : `${formatTable(only, command.units)}\n\n${CAUTION}`
-  }
-  const summary = {
-    summary: { specimens: results.length, properties: summariseSpecimens(results) },
-  }
-  if (command.json) return JSON.stringify([...results, summary], null, 2)
-  return [
-    ...results.map((r) => formatTable(r, command.units)),
-    formatSummary(summary.summary),
-    CAUTION,
-  ].join('\n\n')
+  const specimens = command.files.map((file) => ({ name: file, source: fileChunks(file) }))
+  const report = analyseSpecimens(specimens, command.options)
+  if (command.json) return JSON.stringify(report, null, 2)
+  return formatReport(report, command.options.units ?? 'si')
 }
 
 function main(): void {
@@ -86,7 +39,8 @@ function main(): void {
   } catch (error) {
     const known = error instanceof TensileInputError
     const message = error instanceof Error ? error.message : String(error)
-    process.stderr.write(`analyze: ${known ? message : `internal error: ${message}`}\n`)
+    const line = withoutControlCharacters(message.split('\n')[0] ?? '')
+    process.stderr.write(`analyze: ${known ? line : `internal error: ${line}`}\n`)
     process.exitCode = known ? 2 : 1
   }
 }

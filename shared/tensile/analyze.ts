@@ -7,8 +7,14 @@ import { importRecord } from './import-record'
 import { maximumForce, type MaximumForcePoint } from './maximum-force'
 import type { TensileResult } from './result'
 import { defaultHardeningRange, strainHardening } from './strain-hardening'
-import { trueStressStrain } from './true-curve'
-import type { AnalysisOptions, EngineeringCurve, ImportOptions, ResolvedGeometry } from './types'
+import { trueValuesAt } from './true-curve'
+import type {
+  AnalysisOptions,
+  EngineeringCurve,
+  ImportOptions,
+  RecordSource,
+  ResolvedGeometry,
+} from './types'
 import { offsetYieldStrength, proportionalLimit, totalExtensionStrength } from './yield-strength'
 
 const DEFAULT_OFFSET_PCT = 0.2
@@ -86,14 +92,14 @@ function hardening(
 }
 
 function atMaximumForce(c: CompensatedCurve, top: MaximumForcePoint, geometry: ResolvedGeometry) {
-  const trueCurve = trueStressStrain(c.strain, c.stress, top.index)
+  const atTop = trueValuesAt(c.strain, c.stress, top.index)
   return {
     tensileStrengthMPa: top.stressMPa,
     maximumForceN: geometry.areaMm2 === null ? null : top.stressMPa * geometry.areaMm2,
     uniformElongationPct: (top.strain - top.stressMPa / c.modulusMPa) * 100,
     totalElongationAtMaxForcePct: top.strain * 100,
-    trueStressAtMaxForceMPa: trueCurve.trueStressMPa[top.index]!,
-    trueStrainAtMaxForce: trueCurve.trueStrain[top.index]!,
+    trueStressAtMaxForceMPa: atTop.trueStressMPa,
+    trueStrainAtMaxForce: atTop.trueStrain,
   }
 }
 
@@ -108,13 +114,35 @@ function atFracture(c: CompensatedCurve, fracture: number, geometry: ResolvedGeo
   }
 }
 
+function fitWindow(c: CompensatedCurve): TensileResult['modulusFit'] {
+  const { fit } = c
+  const recordedStrainPct = (i: number) => (c.strain[i]! + c.originStrain) * 100
+  return {
+    fromMPa: fit.fromMPa,
+    toMPa: fit.toMPa,
+    rSquared: fit.rSquared,
+    points: fit.points,
+    chosenBy: fit.chosenBy,
+    rounded: fit.rounded,
+    fromPoint: fit.fromIndex + 1,
+    toPoint: fit.toIndex + 1,
+    fromStrainPct: recordedStrainPct(fit.fromIndex),
+    toStrainPct: recordedStrainPct(fit.toIndex),
+  }
+}
+
 /** Every property of one engineering curve (see result.ts for the meaning of each key). */
 export function analyseCurve(
   curve: EngineeringCurve,
   options: AnalysisOptions = {},
 ): TensileResult {
+  return analyse(curve, options, false)
+}
+
+/** With `reuse`, the curve's strain array is overwritten by the compensated strain. */
+function analyse(curve: EngineeringCurve, options: AnalysisOptions, reuse: boolean): TensileResult {
   const warnings: string[] = []
-  const c = curveAfterFit(curve, options.fitRange, warnings)
+  const c = curveAfterFit(curve, options.fitRange, warnings, reuse)
   const top = maximumForce(c.strain, c.stress)
   const fracture = fractureIndex(c.stress, top.index)
   const yields = yieldStrengths(c, options.offsetsPct ?? [DEFAULT_OFFSET_PCT], fracture, warnings)
@@ -122,12 +150,7 @@ export function analyseCurve(
   const maximum = atMaximumForce(c, top, curve.geometry)
   return {
     modulusGPa: c.modulusMPa / 1000,
-    modulusFit: {
-      fromMPa: c.fit.fromMPa,
-      toMPa: c.fit.toMPa,
-      rSquared: c.fit.rSquared,
-      points: c.fit.points,
-    },
+    modulusFit: fitWindow(c),
     strainOriginShiftPct: c.originStrain * 100,
     proportionalLimitMPa: proportionalLimit(
       c.strain,
@@ -153,10 +176,11 @@ export function analyseCurve(
 
 /** Reads a delimited record and analyses it: the one call the server and the command line make. */
 export function analyseRecord(
-  text: string,
+  source: RecordSource,
   options: ImportOptions & AnalysisOptions = {},
 ): TensileResult {
-  const record = importRecord(text, options)
-  const result = analyseCurve(buildCurve(record), options)
+  const record = importRecord(source, options)
+  // The record is ours alone: its arrays become the curve, converted in place.
+  const result = analyse(buildCurve(record, true), options, true)
   return { ...result, warnings: [...record.warnings, ...result.warnings] }
 }

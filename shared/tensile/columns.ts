@@ -1,4 +1,6 @@
+import { splitTrailingUnit, withoutBrackets } from './brackets'
 import { TensileInputError } from './errors'
+import { quoted } from './printable'
 import type { RecordLayout } from './layout'
 import type { ColumnRole, UsedColumn } from './types'
 import { unitFactor } from './units'
@@ -10,12 +12,8 @@ export interface ColumnHeading {
   unit: string
 }
 
-const BRACKETED_UNIT = /^(.*?)\s*[[(]([^\])]*)[\])]\s*$/
-
 function splitNameAndUnit(cell: string, unitsRowCell: string | undefined): [string, string] {
-  const match = BRACKETED_UNIT.exec(cell)
-  if (match) return [match[1]?.trim() ?? cell, match[2]?.trim() ?? '']
-  return [cell.trim(), (unitsRowCell ?? '').replace(/^[[(]|[\])]$/g, '').trim()]
+  return splitTrailingUnit(cell) ?? [cell.trim(), withoutBrackets(unitsRowCell ?? '').trim()]
 }
 
 /** Column names and units from the header and the units row (brackets in the header win). */
@@ -77,7 +75,7 @@ function findByOverride(headings: readonly ColumnHeading[], wanted: string): Col
   const position = /^\d+$/.test(wanted.trim()) ? Number(wanted) - 1 : -1
   const lower = wanted.trim().toLowerCase()
   const found = headings.find((h) => h.position === position || h.name.toLowerCase() === lower)
-  if (!found) throw new TensileInputError(`No column '${wanted}' in the record`)
+  if (!found) throw new TensileInputError(`No column ${quoted(wanted)} in the record`)
   return found
 }
 

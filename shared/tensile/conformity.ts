@@ -1,3 +1,6 @@
+import { VERDICT_CAUTION } from './cautions'
+import type { UncertaintyKey } from './option-values'
+import type { PropertyQuantity } from './properties'
 import type { TensileResult } from './result'
 import { ISO_6892_ROUNDING, roundToIncrement, type RoundingSettings } from './rounding'
 import {
@@ -8,10 +11,24 @@ import {
 } from './specification'
 
 /** How a measured value is compared with a limit (ISO/IEC 17025 7.8.6 asks that it be stated). */
-export type DecisionRule =
-  | { kind: 'simple' }
-  /** Guard band of the expanded uncertainty U: MPa for strengths, percentage points for A and Z. */
-  | { kind: 'guard'; uncertaintyMPa: number; uncertaintyPct: number }
+export type DecisionRule = 'simple' | 'guard'
+
+/** The lab's expanded uncertainty U per property, and where it comes from. */
+export interface MeasurementUncertainty {
+  /** MPa for strengths, percentage points for A and Z. */
+  expanded: Partial<Record<UncertaintyKey, number>>
+  /** The uncertainty budget or other source of U; null when nobody stated it. */
+  source: string | null
+}
+
+/** Everything a conformity statement rests on besides the result and the specification. */
+export interface ConformityBasis {
+  rule: DecisionRule
+  /** Input to the guard band; reported beside each item under either rule. */
+  uncertainty: MeasurementUncertainty | null
+  /** The edition of the specification that the contract or the client's specification cites. */
+  edition: string | null
+}
 
 export type Verdict = 'pass' | 'fail' | 'inconclusive' | 'not comparable' | 'not measured'
 export type OverallVerdict = 'pass' | 'fail' | 'inconclusive' | 'incomplete'
@@ -22,13 +39,25 @@ export interface ConformityItem {
   limit: number
   bound: 'min' | 'max'
   verdict: Verdict
+  /** Expanded uncertainty U of the value, in the value's unit; null when none was stated. */
+  uncertainty: number | null
   note?: string
 }
 
 export interface ConformityResult {
-  specification: { designation: string; standard: string; grade: string; source: string }
+  specification: {
+    designation: string
+    standard: string
+    grade: string
+    source: string
+    /** The edition the contract or the client's specification cites; null when not stated. */
+    edition: string | null
+  }
   rule: string
+  uncertainty: MeasurementUncertainty | null
   overall: OverallVerdict
+  /** Why the verdict is indicative for specimens cut from a failed part. */
+  caution: string
   items: ConformityItem[]
 }
 
@@ -36,6 +65,8 @@ type Kind = 'strength' | 'elongation' | 'reduction'
 
 interface Check {
   property: string
+  /** Which stated uncertainty applies; null when none can (hardness). */
+  uncertaintyKey: UncertaintyKey | null
   value: number | null
   limit: number
   bound: 'min' | 'max'
@@ -65,13 +96,18 @@ function guardedVerdict(check: Check, value: number, u: number): Verdict {
   return 'inconclusive'
 }
 
-function judge(check: Check, rule: DecisionRule, rounding: RoundingSettings): ConformityItem {
-  const { kind: _kind, preset, ...item } = check
+function judge(check: Check, basis: ConformityBasis, rounding: RoundingSettings): ConformityItem {
+  const { kind: _kind, preset, uncertaintyKey, ...rest } = check
+  const u = uncertaintyKey === null ? null : (basis.uncertainty?.expanded[uncertaintyKey] ?? null)
+  const item = { ...rest, uncertainty: u }
   if (preset !== undefined) return { ...item, verdict: preset }
   if (check.value === null) return { ...item, verdict: 'not measured' }
-  if (rule.kind === 'simple')
+  if (basis.rule === 'simple')
     return { ...item, verdict: simpleVerdict(check, check.value, rounding) }
-  const u = check.kind === 'strength' ? rule.uncertaintyMPa : rule.uncertaintyPct
+  if (u === null) {
+    const note = `no expanded uncertainty stated for ${uncertaintyKey ?? check.property}`
+    return { ...item, verdict: 'inconclusive', note }
+  }
   return { ...item, verdict: guardedVerdict(check, check.value, u) }
 }
 
@@ -87,11 +123,12 @@ function yieldCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
   switch (spec.yield.kind) {
     case 'ReH':
       return result.discontinuousYielding
-        ? [{ ...base, property: 'ReH', value: result.upperYieldMPa }]
+        ? [{ ...base, property: 'ReH', uncertaintyKey: 'ReH', value: result.upperYieldMPa }]
         : [
             {
               ...base,
               property: 'Rp0.2',
+              uncertaintyKey: 'Rp0.2',
               value: rp02,
               note: 'continuous yielding: Rp0.2 compared in place of ReH',
             },
@@ -101,6 +138,7 @@ function yieldCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
         {
           ...base,
           property: 'Rp0.2',
+          uncertaintyKey: 'Rp0.2',
           value: rp02,
           note: result.discontinuousYielding
             ? 'discontinuous yielding; the specification asks for Rp0.2'
@@ -108,18 +146,17 @@ function yieldCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
         },
       ]
     case 'Rt0.5':
-      return [{ ...base, property: 'Rt0.5', value: result.rt05MPa }]
+      return [{ ...base, property: 'Rt0.5', uncertaintyKey: 'Rt0.5', value: result.rt05MPa }]
   }
 }
 
 function tensileChecks(spec: SpecificationRecord, result: TensileResult): Check[] {
   const { minMPa, maxMPa } = spec.tensileStrength
   const value = result.tensileStrengthMPa
+  const base = { property: 'Rm', uncertaintyKey: 'Rm' as const, value, kind: 'strength' as const }
   const checks: Check[] = []
-  if (minMPa !== null)
-    checks.push({ property: 'Rm', value, limit: minMPa, bound: 'min', kind: 'strength' })
-  if (maxMPa !== null)
-    checks.push({ property: 'Rm', value, limit: maxMPa, bound: 'max', kind: 'strength' })
+  if (minMPa !== null) checks.push({ ...base, limit: minMPa, bound: 'min' })
+  if (maxMPa !== null) checks.push({ ...base, limit: maxMPa, bound: 'max' })
   return checks
 }
 
@@ -159,6 +196,7 @@ function elongationCheck(spec: SpecificationRecord, result: TensileResult): Chec
   const requirement = matching ?? first
   const check: Check = {
     property: `A (${describeBasis(requirement.basis)})`,
+    uncertaintyKey: 'A',
     value,
     limit: requirement.minPct,
     bound: 'min',
@@ -175,6 +213,7 @@ function otherChecks(spec: SpecificationRecord, result: TensileResult): Check[] 
   if (spec.reductionOfAreaMinPct !== null) {
     checks.push({
       property: 'Z',
+      uncertaintyKey: 'Z',
       value: result.reductionOfAreaPct,
       limit: spec.reductionOfAreaMinPct,
       bound: 'min',
@@ -185,6 +224,7 @@ function otherChecks(spec: SpecificationRecord, result: TensileResult): Check[] 
   if (hardness?.max != null) {
     checks.push({
       property: `hardness (${hardness.scale})`,
+      uncertaintyKey: null,
       value: null,
       limit: hardness.max,
       bound: 'max',
@@ -203,16 +243,36 @@ function overallVerdict(items: readonly ConformityItem[]): OverallVerdict {
   return 'pass'
 }
 
-export function describeRule(rule: DecisionRule): string {
-  if (rule.kind === 'simple') return 'simple acceptance on values rounded as reported (ASTM E29)'
-  return `guard band of the expanded uncertainty U = ${rule.uncertaintyMPa} MPa, ${rule.uncertaintyPct} % (ISO/IEC 17025 7.8.6)`
+function describeUncertainty(uncertainty: MeasurementUncertainty): string {
+  const values = Object.entries(uncertainty.expanded).map(
+    ([key, u]) => `${key} ${u}${key === 'A' || key === 'Z' ? ' %' : ' MPa'}`,
+  )
+  return `U = ${values.join(', ')} (${uncertainty.source ?? 'source not stated'})`
+}
+
+/** The decision rule in words, with the uncertainty it rests on (ISO/IEC 17025 7.8.6). */
+export function describeRule(basis: Pick<ConformityBasis, 'rule' | 'uncertainty'>): string {
+  const u = basis.uncertainty === null ? null : describeUncertainty(basis.uncertainty)
+  if (basis.rule === 'guard')
+    return `guard band of the expanded uncertainty (ISO/IEC 17025 7.8.6): ${u ?? 'no U stated'}`
+  const simple = 'simple acceptance on values rounded as reported (ASTM E29)'
+  return u === null
+    ? simple
+    : `${simple}; ${u}, reported beside each value, not used in the decision`
+}
+
+/** What a conformity item's value measures, for showing it (null: not a tensile quantity). */
+export function conformityQuantity(property: string): PropertyQuantity | null {
+  if (property.startsWith('A ')) return 'elongation'
+  if (property === 'Z') return 'reduction'
+  return property.startsWith('hardness') ? null : 'strength'
 }
 
 /** Compares one result with a specification under a stated decision rule. */
 export function evaluateConformity(
   result: TensileResult,
   spec: SpecificationRecord,
-  rule: DecisionRule,
+  basis: ConformityBasis,
   rounding: RoundingSettings = ISO_6892_ROUNDING,
 ): ConformityResult {
   const checks = [
@@ -221,16 +281,19 @@ export function evaluateConformity(
     ...elongationCheck(spec, result),
     ...otherChecks(spec, result),
   ]
-  const items = checks.map((check) => judge(check, rule, rounding))
+  const items = checks.map((check) => judge(check, basis, rounding))
   return {
     specification: {
       designation: spec.designation,
       standard: spec.standard,
       grade: spec.grade,
       source: spec.source,
+      edition: basis.edition ?? spec.edition,
     },
-    rule: describeRule(rule),
+    rule: describeRule(basis),
+    uncertainty: basis.uncertainty,
     overall: overallVerdict(items),
+    caution: VERDICT_CAUTION,
     items,
   }
 }

@@ -18,7 +18,7 @@ const SAMPLE_LINES = 20
 const COMMA_DECIMAL = /^[+-]?\d*,\d+(?:[eE][+-]?\d+)?$/
 const POINT_DECIMAL = /^[+-]?\d*\.\d+(?:[eE][+-]?\d+)?$/
 
-/** Non-empty lines from the later part of the file, where the numeric body is. */
+/** Non-empty lines from the later part of the head, where the numeric body is. */
 function sampleBodyLines(lines: readonly string[]): string[] {
   const sample: string[] = []
   const start = Math.floor(lines.length * 0.6)

@@ -1,5 +1,7 @@
 import Papa from 'papaparse'
+import { withoutBrackets } from './brackets'
 import { TensileInputError } from './errors'
+import { groupedNumber, RECORD_LIMITS } from './limits'
 import { isNumericLike } from './number-text'
 import type { Dialect } from './dialect'
 import { isKnownUnit } from './units'
@@ -14,12 +16,12 @@ export interface RecordLayout {
   width: number
 }
 
-const HEAD_SCAN_LIMIT = 5000
 const CONFIRMING_ROWS = 3
 
 /**
- * The first lines of a file, split into cells by Papa Parse on first use, so that only the
- * preamble, the header and a few data lines are ever parsed here; null for a blank line.
+ * The head of a file, split into cells by Papa Parse on first use, so that only the preamble,
+ * the header and a few data lines are ever parsed here; null for a blank line. A row with too
+ * many cells or too long a cell is refused here, before anything else reads it.
  */
 class HeadRows {
   private readonly cache = new Map<number, string[] | null>()
@@ -29,18 +31,27 @@ class HeadRows {
     private readonly lines: readonly string[],
     private readonly dialect: Dialect,
   ) {
-    this.length = Math.min(lines.length, HEAD_SCAN_LIMIT)
+    this.length = lines.length
   }
 
   at(index: number): string[] | null {
     if (index < 0 || index >= this.length) return null
-    if (!this.cache.has(index)) this.cache.set(index, this.split(this.lines[index] ?? ''))
+    if (!this.cache.has(index)) this.cache.set(index, this.split(this.lines[index] ?? '', index))
     return this.cache.get(index) ?? null
   }
 
-  private split(line: string): string[] | null {
+  private split(line: string, index: number): string[] | null {
     if (line.trim() === '') return null
     const row = Papa.parse<string[]>(line, { delimiter: this.dialect.delimiter }).data[0] ?? []
+    if (row.length > RECORD_LIMITS.columns)
+      throw new TensileInputError(
+        `Line ${index + 1} has more than ${groupedNumber(RECORD_LIMITS.columns)} columns`,
+      )
+    const long = row.findIndex((cell) => cell.length > RECORD_LIMITS.cellCharacters)
+    if (long >= 0)
+      throw new TensileInputError(
+        `Line ${index + 1}, column ${long + 1}: a cell longer than ${groupedNumber(RECORD_LIMITS.cellCharacters)} characters`,
+      )
     return row.map((cell) => cell.trim())
   }
 }
@@ -54,12 +65,12 @@ function isDataRow(row: readonly string[] | null, dialect: Dialect): boolean {
 }
 
 function isUnitsRow(row: readonly string[]): boolean {
-  const bare = row.map((cell) => cell.replace(/^[[(]|[\])]$/g, ''))
+  const bare = row.map(withoutBrackets)
   return bare.every((cell) => cell === '' || isKnownUnit(cell)) && bare.some((cell) => cell !== '')
 }
 
 /** Index of the first line that starts a run of numeric rows. */
-function findDataStart(rows: HeadRows, dialect: Dialect): number {
+function findDataStart(rows: HeadRows, dialect: Dialect, whole: boolean): number {
   for (let i = 0; i < rows.length; i++) {
     if (!isDataRow(rows.at(i), dialect)) continue
     let confirmed = 0
@@ -72,7 +83,10 @@ function findDataStart(rows: HeadRows, dialect: Dialect): number {
     }
     if (confirmed === CONFIRMING_ROWS || k === rows.length) return i
   }
-  throw new TensileInputError('No numeric data found in the file')
+  if (whole) throw new TensileInputError('No numeric data found in the file')
+  throw new TensileInputError(
+    `No numeric data found in the first ${groupedNumber(rows.length)} lines of the file`,
+  )
 }
 
 /** The nearest non-empty line above `index`, or -1. */
@@ -95,9 +109,13 @@ function preambleRows(rows: HeadRows, end: number): string[][] {
  * symbols (or empty cells, meaning dimensionless) directly above the data is a units row only
  * when another row sits above it to name the columns.
  */
-export function locateLayout(lines: readonly string[], dialect: Dialect): RecordLayout {
+export function locateLayout(
+  lines: readonly string[],
+  dialect: Dialect,
+  whole: boolean,
+): RecordLayout {
   const rows = new HeadRows(lines, dialect)
-  const dataStart = findDataStart(rows, dialect)
+  const dataStart = findDataStart(rows, dialect, whole)
   const width = rows.at(dataStart)?.length ?? 0
   const above = previousFilled(rows, dataStart)
   const aboveRow = rows.at(above)

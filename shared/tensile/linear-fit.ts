@@ -4,6 +4,8 @@ export interface LineFit {
   intercept: number
   rSquared: number
   points: number
+  /** Standard error of the slope from the scatter about the line (infinite below 3 points). */
+  slopeError: number
 }
 
 interface Sums {
@@ -22,7 +24,40 @@ function lineFromSums(s: Sums): LineFit {
   const slope = sxy / sxx
   const intercept = (s.y - slope * s.x) / s.n
   const rSquared = syy > 0 ? (sxy * sxy) / (sxx * syy) : 1
-  return { slope, intercept, rSquared, points: s.n }
+  const residual = Math.max(0, syy - slope * sxy)
+  const slopeError = s.n > 2 ? Math.sqrt(residual / (s.n - 2) / sxx) : Number.POSITIVE_INFINITY
+  return { slope, intercept, rSquared, points: s.n, slopeError }
+}
+
+/**
+ * Sums for a least-squares line built one point at a time, shifted by the first point so that
+ * large offsets do not eat the precision of the sums.
+ */
+export class LineSums {
+  private readonly s: Sums = { n: 0, x: 0, y: 0, xx: 0, xy: 0, yy: 0 }
+  private x0 = 0
+  private y0 = 0
+
+  add(x: number, y: number): void {
+    const s = this.s
+    if (s.n === 0) [this.x0, this.y0] = [x, y]
+    const dx = x - this.x0
+    const dy = y - this.y0
+    s.n++
+    s.x += dx
+    s.y += dy
+    s.xx += dx * dx
+    s.xy += dx * dy
+    s.yy += dy * dy
+  }
+
+  /** The line, or null with fewer than two points or no spread in x. */
+  line(): LineFit | null {
+    if (this.s.n < 2) return null
+    const line = lineFromSums(this.s)
+    if (!Number.isFinite(line.slope)) return null
+    return { ...line, intercept: this.y0 + line.intercept - line.slope * this.x0 }
+  }
 }
 
 /**
@@ -35,13 +70,13 @@ export function fitLine(
   y: ArrayLike<number>,
   from: number,
   to: number,
-  include: (index: number) => boolean = () => true,
+  include?: (index: number) => boolean,
 ): LineFit | null {
   const x0 = x[from] ?? 0
   const y0 = y[from] ?? 0
   const s: Sums = { n: 0, x: 0, y: 0, xx: 0, xy: 0, yy: 0 }
   for (let i = from; i <= to; i++) {
-    if (!include(i)) continue
+    if (include !== undefined && !include(i)) continue
     const dx = x[i]! - x0
     const dy = y[i]! - y0
     s.n++
@@ -58,41 +93,53 @@ export function fitLine(
 }
 
 /**
- * Running sums over a series so that the least-squares line of any index window costs O(1):
- * the window search for the elastic slope looks at every start index of a long record.
+ * Running sums over a series, kept at the boundaries of blocks of `stride` samples, so that
+ * the least-squares line over any run of whole blocks costs O(1) and the sums of a long record
+ * take little memory: the window search for the elastic slope looks at thousands of windows.
  */
-export class WindowFitter {
+export class BlockFitter {
+  /** Number of blocks; the last may be shorter than `stride`. */
+  readonly blocks: number
   private readonly sums: Float64Array[]
   private readonly x0: number
   private readonly y0: number
 
-  constructor(x: ArrayLike<number>, y: ArrayLike<number>, length: number) {
+  constructor(
+    x: ArrayLike<number>,
+    y: ArrayLike<number>,
+    private readonly length: number,
+    readonly stride: number,
+  ) {
     this.x0 = x[0] ?? 0
     this.y0 = y[0] ?? 0
-    this.sums = [0, 1, 2, 3, 4].map(() => new Float64Array(length + 1))
-    const [sx, sy, sxx, sxy, syy] = this.sums as [
-      Float64Array,
-      Float64Array,
-      Float64Array,
-      Float64Array,
-      Float64Array,
-    ]
+    this.blocks = Math.ceil(length / stride)
+    this.sums = [0, 1, 2, 3, 4].map(() => new Float64Array(this.blocks + 1))
+    const running = [0, 0, 0, 0, 0]
     for (let i = 0; i < length; i++) {
       const dx = x[i]! - this.x0
       const dy = y[i]! - this.y0
-      sx[i + 1] = sx[i]! + dx
-      sy[i + 1] = sy[i]! + dy
-      sxx[i + 1] = sxx[i]! + dx * dx
-      sxy[i + 1] = sxy[i]! + dx * dy
-      syy[i + 1] = syy[i]! + dy * dy
+      running[0]! += dx
+      running[1]! += dy
+      running[2]! += dx * dx
+      running[3]! += dx * dy
+      running[4]! += dy * dy
+      if ((i + 1) % stride === 0 || i + 1 === length) {
+        const block = Math.ceil((i + 1) / stride)
+        for (let k = 0; k < 5; k++) this.sums[k]![block] = running[k]!
+      }
     }
   }
 
-  /** The line through samples from..to inclusive. */
-  fit(from: number, to: number): LineFit {
-    const window = (k: number) => this.sums[k]![to + 1]! - this.sums[k]![from]!
+  /** First sample of a block (or the end of the series for `blocks`). */
+  start(block: number): number {
+    return Math.min(block * this.stride, this.length)
+  }
+
+  /** The line through the samples of blocks from..to − 1. */
+  fit(fromBlock: number, toBlock: number): LineFit {
+    const window = (k: number) => this.sums[k]![toBlock]! - this.sums[k]![fromBlock]!
     const line = lineFromSums({
-      n: to - from + 1,
+      n: this.start(toBlock) - this.start(fromBlock),
       x: window(0),
       y: window(1),
       xx: window(2),

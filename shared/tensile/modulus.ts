@@ -1,5 +1,6 @@
 import { TensileInputError } from './errors'
-import { fitLine, WindowFitter, type LineFit } from './linear-fit'
+import { elasticCore, KNEE_SIGNIFICANCE, WINDOW_MIN_POINTS } from './elastic-core'
+import { fitLine, type LineFit } from './linear-fit'
 import type { FitRange } from './types'
 
 /** The elastic line of the test and the samples it was fitted to. */
@@ -12,66 +13,20 @@ export interface ModulusFit {
   toMPa: number
   rSquared: number
   points: number
+  /** How the window was found: searched by the engine, or the fit range the user gave. */
+  chosenBy: 'automatic' | 'fit range'
+  /** The search found no sharp end to the linear part and fitted the straight start instead. */
+  rounded: boolean
 }
 
 /*
- * Window search settings (our own choice, tuned on the open 42CrMoS4 records and on
- * Ramberg–Osgood curves): a candidate window spans a quarter of the peak stress and at least
- * 8 samples; it is straight when the slopes of its halves differ by at most 2 %; the settled
- * fit keeps samples within 0.2 % of the elastic strain of the line. At most about 4000 start
- * positions are tried, so a million-point record costs no more than a small one.
+ * Settling (our own choice): the fit keeps samples within 0.2 % of the elastic strain of the
+ * line; on a rounded curve, the top is cut back while the slope falls faster and faster by
+ * more than 1 % beyond the scatter.
  */
-const WINDOW_SPAN = 0.25
-const WINDOW_MIN_POINTS = 8
-const MAX_BEND = 0.02
+const KNEE_TRIM = 0.01
 const SETTLE_TOLERANCE = 0.002
 const SETTLE_ROUNDS = 5
-const MAX_WINDOW_STARTS = 4000
-
-interface Window {
-  from: number
-  to: number
-  line: LineFit
-  /** Relative difference between the slopes of the window's two halves. */
-  bend: number
-}
-
-function candidateWindows(strain: Float64Array, stress: Float64Array, peak: number): Window[] {
-  const fitter = new WindowFitter(strain, stress, peak + 1)
-  const span = WINDOW_SPAN * stress[peak]!
-  const windows: Window[] = []
-  const step = Math.max(1, Math.floor(peak / MAX_WINDOW_STARTS))
-  let to = 0
-  for (let from = 0; from <= peak; from += step) {
-    to = Math.max(to, from + WINDOW_MIN_POINTS - 1)
-    while (to <= peak && stress[to]! < stress[from]! + span) to++
-    if (to > peak) break
-    const middle = Math.floor((from + to) / 2)
-    const line = fitter.fit(from, to)
-    const bend =
-      Math.abs(fitter.fit(from, middle).slope - fitter.fit(middle, to).slope) / line.slope
-    windows.push({ from, to, line, bend })
-  }
-  return windows
-}
-
-/**
- * The steepest of the straight windows. Straight is judged by how much the slope changes from
- * the lower to the upper half of a window, which rejects both a toe and a stiff seating
- * transient at the start of a record as well as the rounding into yield.
- */
-function steepestStraight(windows: readonly Window[]): number {
-  let leastBend = Number.POSITIVE_INFINITY
-  for (const w of windows) if (w.line.slope > 0) leastBend = Math.min(leastBend, w.bend)
-  const limit = Math.max(MAX_BEND, leastBend * 2)
-  let best = -1
-  for (let k = 0; k < windows.length; k++) {
-    const w = windows[k]!
-    if (w.bend > limit || !(w.line.slope > 0)) continue
-    if (best < 0 || w.line.slope > windows[best]!.line.slope) best = k
-  }
-  return Math.max(best, 0)
-}
 
 function strainResidual(
   strain: Float64Array,
@@ -129,7 +84,51 @@ function settledRange(
   return [from, to]
 }
 
-function toModulusFit(stress: Float64Array, from: number, to: number, line: LineFit): ModulusFit {
+/**
+ * How much faster the slope falls from the middle to the upper third than from the lower to
+ * the middle one, relative to the slope, with its standard error. The rounding into yield
+ * falls faster and faster; a stiff seating transient at the start falls and then levels off.
+ */
+function fallingFaster(strain: Float64Array, stress: Float64Array, from: number, to: number) {
+  const length = to - from + 1
+  const first = from + Math.floor(length / 3)
+  const second = from + Math.floor((2 * length) / 3)
+  const thirds = [
+    fitLine(strain, stress, from, first - 1),
+    fitLine(strain, stress, first, second - 1),
+    fitLine(strain, stress, second, to),
+  ]
+  const [lower, middle, upper] = thirds
+  if (lower == null || middle == null || upper == null)
+    return { knee: 0, acceleration: 0, error: Number.POSITIVE_INFINITY }
+  const scale = Math.abs(middle.slope)
+  return {
+    knee: (middle.slope - upper.slope) / scale,
+    acceleration: (2 * middle.slope - lower.slope - upper.slope) / scale,
+    error: Math.hypot(lower.slopeError, 2 * middle.slopeError, upper.slopeError) / scale,
+  }
+}
+
+/**
+ * Settling grows the window as far as the scatter allows, which on a noisy rounded curve
+ * reaches into the rounding: the top is cut back while the slope of the window falls faster
+ * and faster, beyond the scatter.
+ */
+function withoutKnee(strain: Float64Array, stress: Float64Array, from: number, to: number): number {
+  while (to - from + 1 > 2 * WINDOW_MIN_POINTS) {
+    const { knee, acceleration, error } = fallingFaster(strain, stress, from, to)
+    if (!(knee > KNEE_TRIM && acceleration > KNEE_SIGNIFICANCE * error)) break
+    to -= Math.max(1, Math.floor((to - from + 1) * 0.1))
+  }
+  return to
+}
+
+function toModulusFit(
+  stress: Float64Array,
+  [from, to]: [number, number],
+  line: LineFit,
+  how: Pick<ModulusFit, 'chosenBy' | 'rounded'>,
+): ModulusFit {
   let low = Number.POSITIVE_INFINITY
   let high = Number.NEGATIVE_INFINITY
   for (let i = from; i <= to; i++) {
@@ -145,6 +144,7 @@ function toModulusFit(stress: Float64Array, from: number, to: number, line: Line
     toMPa: high,
     rSquared: line.rSquared,
     points: line.points,
+    ...how,
   }
 }
 
@@ -158,16 +158,16 @@ export function fitModulusAutomatically(
   stress: Float64Array,
   peak: number,
 ): ModulusFit {
-  const windows = candidateWindows(strain, stress, peak)
-  if (windows.length === 0) {
+  const found = elasticCore(strain, stress, peak)
+  if (found === null) {
     throw new TensileInputError('Too few points before maximum force to fit the elastic slope')
   }
-  const core = windows[steepestStraight(windows)]!
-  const [from, to] = settledRange(strain, stress, peak, core.from, core.to)
+  const [from, settledTo] = settledRange(strain, stress, peak, found.core.from, found.core.to)
+  const to = found.rounded ? withoutKnee(strain, stress, from, settledTo) : settledTo
   const line = fitLine(strain, stress, from, to)
   if (line === null || !(line.slope > 0))
     throw new TensileInputError('No rising elastic part found')
-  return toModulusFit(stress, from, to, line)
+  return toModulusFit(stress, [from, to], line, { chosenBy: 'automatic', rounded: found.rounded })
 }
 
 /** Elastic slope over a range the user chose (ASTM E111), on the rising curve before maximum force. */
@@ -189,5 +189,5 @@ export function fitModulusInRange(
   if (line === null || line.points < 3 || !(line.slope > 0)) {
     throw new TensileInputError('The fit range holds fewer than 3 points of the rising curve')
   }
-  return toModulusFit(stress, from!, to!, line)
+  return toModulusFit(stress, [from!, to!], line, { chosenBy: 'fit range', rounded: false })
 }

@@ -1,3 +1,4 @@
+import { firstBracketed } from './brackets'
 import type { Dialect } from './dialect'
 import { parseNumberCell } from './number-text'
 import type { GeometryInput, SectionInput } from './types'
@@ -35,11 +36,9 @@ const FIELD_RULES: readonly FieldRule[] = [
   { pattern: /extensometer|gauge length|\ble\b/, field: 'extensometerGaugeLengthMm', final: false },
 ]
 
-const BRACKETED_UNIT = /[[(]([^\])]*)[\])]/
-
 function keyUnit(key: string, unitCell: string | undefined): string {
   if (unitCell !== undefined && unitCell.trim() !== '') return unitCell.trim()
-  return BRACKETED_UNIT.exec(key)?.[1]?.trim() ?? ''
+  return firstBracketed(key) ?? ''
 }
 
 /** Converts a preamble value to mm or mm²; a value without a unit is taken in mm (mm²). */

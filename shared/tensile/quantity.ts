@@ -1,4 +1,5 @@
 import { TensileInputError } from './errors'
+import { quoted } from './printable'
 import { unitFactor, type Quantity } from './units'
 
 const QUANTITY_PATTERN = /^\s*([+-]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:e[+-]?\d+)?)\s*(\S*)\s*$/i
@@ -12,12 +13,14 @@ export function parseQuantity(text: string, quantity: Quantity, defaultUnit: str
   const match = QUANTITY_PATTERN.exec(text)
   const numberText = match?.[1]
   if (numberText === undefined) {
-    throw new TensileInputError(`'${text}' is not a number with a unit`)
+    throw new TensileInputError(`${quoted(text)} is not a number with a unit`)
   }
   const unit = match?.[2] || defaultUnit
   const factor = unitFactor(unit, quantity)
   if (factor === null) {
-    throw new TensileInputError(`'${text}': unit '${unit}' is not recognised as a ${quantity} unit`)
+    throw new TensileInputError(
+      `${quoted(text)}: unit ${quoted(unit)} is not recognised as a ${quantity} unit`,
+    )
   }
   return Number(numberText.replace(',', '.')) * factor
 }

@@ -4,7 +4,23 @@
  */
 export interface TensileResult {
   modulusGPa: number
-  modulusFit: { fromMPa: number; toMPa: number; rSquared: number; points: number }
+  /** The window of the elastic fit, so anyone can check or repeat it. */
+  modulusFit: {
+    fromMPa: number
+    toMPa: number
+    rSquared: number
+    points: number
+    /** 'automatic' (searched) or 'fit range' (given with the fitRange option). */
+    chosenBy: 'automatic' | 'fit range'
+    /** No sharp end to the linear part was found: E comes from the straight start of the curve. */
+    rounded: boolean
+    /** First and last data point of the window, counted from 1 in the record's body. */
+    fromPoint: number
+    toPoint: number
+    /** Strain at the first and last point as recorded (before toe compensation), percent. */
+    fromStrainPct: number
+    toStrainPct: number
+  }
   /** Toe compensation: how far the strain origin moved, in percent strain. */
   strainOriginShiftPct: number
   proportionalLimitMPa: number | null

@@ -1,3 +1,4 @@
+import { PROPERTY_CATALOGUE } from './properties'
 import type { TensileResult } from './result'
 
 export interface PropertySummary {
@@ -8,25 +9,12 @@ export interface PropertySummary {
   max: number
 }
 
-/** The single-valued properties worth summarising over a set of specimens. */
-export const SUMMARISED_PROPERTIES = [
-  'modulusGPa',
-  'yieldStrengthMPa',
-  'rt05MPa',
-  'upperYieldMPa',
-  'lowerYieldMPa',
-  'tensileStrengthMPa',
-  'uniformElongationPct',
-  'totalElongationAtMaxForcePct',
-  'elongationAfterFracturePct',
-  'elongationAfterFractureFromLuPct',
-  'reductionOfAreaPct',
-  'strainHardeningExponent',
-  'strengthCoefficientMPa',
-  'toughnessMJm3',
-] as const satisfies readonly (keyof TensileResult)[]
+/** The properties the catalogue marks as summarised, in report order. */
+export const SUMMARISED_PROPERTIES = PROPERTY_CATALOGUE.filter((p) => p.summarised).map(
+  (p) => p.key,
+)
 
-type Summarised = (typeof SUMMARISED_PROPERTIES)[number]
+export type SpecimenSummary = Partial<Record<keyof TensileResult, PropertySummary>>
 
 /** Mean, sample standard deviation (n − 1), min and max of the values that exist. */
 export function summariseValues(values: readonly number[]): PropertySummary | null {
@@ -43,10 +31,8 @@ export function summariseValues(values: readonly number[]): PropertySummary | nu
 }
 
 /** Per-property statistics over several specimens; properties nobody reached are left out. */
-export function summariseSpecimens(
-  results: readonly TensileResult[],
-): Partial<Record<Summarised, PropertySummary>> {
-  const summary: Partial<Record<Summarised, PropertySummary>> = {}
+export function summariseSpecimens(results: readonly TensileResult[]): SpecimenSummary {
+  const summary: SpecimenSummary = {}
   for (const key of SUMMARISED_PROPERTIES) {
     const values = results.map((r) => r[key]).filter((v): v is number => typeof v === 'number')
     const stats = summariseValues(values)

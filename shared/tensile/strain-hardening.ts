@@ -1,4 +1,4 @@
-import { fitLine } from './linear-fit'
+import { LineSums, type LineFit } from './linear-fit'
 
 /** Strain-hardening exponent n and strength coefficient K with the range they were fitted over. */
 export interface HardeningFit {
@@ -27,7 +27,7 @@ export function defaultHardeningRange(
 /**
  * Hollomon σ = K εⁿ fitted by least squares of log true stress on log true strain (ASTM E646),
  * over samples up to maximum force whose engineering strain lies in the range. Null with too
- * few pairs.
+ * few pairs. Only the samples in the range are transformed, and nothing is stored per sample.
  */
 export function strainHardening(
   strain: Float64Array,
@@ -35,18 +35,30 @@ export function strainHardening(
   maximumIndex: number,
   range: { from: number; to: number },
 ): HardeningFit | null {
-  const logStrain = new Float64Array(maximumIndex + 1)
-  const logStress = new Float64Array(maximumIndex + 1)
-  for (let i = 0; i <= maximumIndex; i++) {
-    logStrain[i] = Math.log(Math.log1p(Math.max(strain[i]!, 1e-12)))
-    logStress[i] = Math.log(Math.max(stress[i]!, 1e-12) * (1 + strain[i]!))
-  }
-  const inRange = (i: number) => strain[i]! * 100 >= range.from && strain[i]! * 100 <= range.to
-  const line = fitLine(logStrain, logStress, 0, maximumIndex, inRange)
+  const line = fitLogLog(strain, stress, maximumIndex, range)
   if (line === null || line.points < MINIMUM_PAIRS) return null
   return {
     strainHardeningExponent: line.slope,
     strengthCoefficientMPa: Math.exp(line.intercept),
     fit: { fromPct: range.from, toPct: range.to, points: line.points, rSquared: line.rSquared },
   }
+}
+
+/** Least squares of ln σ_true on ln ε_true over the samples whose strain (percent) is in range. */
+function fitLogLog(
+  strain: Float64Array,
+  stress: Float64Array,
+  maximumIndex: number,
+  range: { from: number; to: number },
+): LineFit | null {
+  const sums = new LineSums()
+  for (let i = 0; i <= maximumIndex; i++) {
+    const e = strain[i]!
+    if (!(e * 100 >= range.from && e * 100 <= range.to)) continue
+    sums.add(
+      Math.log(Math.log1p(Math.max(e, 1e-12))),
+      Math.log(Math.max(stress[i]!, 1e-12) * (1 + e)),
+    )
+  }
+  return sums.line()
 }

@@ -22,3 +22,12 @@ export function trueStressStrain(
   }
   return { trueStrain, trueStressMPa }
 }
+
+/** True strain and true stress of one sample (same definitions, one point). */
+export function trueValuesAt(
+  strain: Float64Array,
+  stress: Float64Array,
+  i: number,
+): { trueStrain: number; trueStressMPa: number } {
+  return { trueStrain: Math.log1p(strain[i]!), trueStressMPa: stress[i]! * (1 + strain[i]!) }
+}

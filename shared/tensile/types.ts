@@ -1,3 +1,14 @@
+/**
+ * A record's text in chunks, in order (a file read piece by piece), with the record's length
+ * in characters when known (an upper bound will do), so its columns can be sized once.
+ */
+export interface RecordChunks extends Iterable<string> {
+  readonly characters?: number
+}
+
+/** A record's text: whole, or in chunks so that a long record is never held as one string. */
+export type RecordSource = string | RecordChunks
+
 /** Column separators the importer recognises, in the order it prefers them. */
 export type Delimiter = '\t' | ';' | ',' | '|'
 export type DecimalSeparator = '.' | ','

@@ -1,4 +1,6 @@
+import { withoutBrackets } from './brackets'
 import { TensileInputError } from './errors'
+import { quoted } from './printable'
 
 /*
  * Exact unit definitions (NIST SP 811, appendix B): the inch is 25.4 mm by definition, the
@@ -71,10 +73,7 @@ const TABLES: Readonly<Record<Quantity, UnitTable>> = {
 }
 
 function unitKey(unit: string, quantity: Quantity): string {
-  const trimmed = unit
-    .trim()
-    .replace(/^[[(]|[\])]$/g, '')
-    .trim()
+  const trimmed = withoutBrackets(unit.trim()).trim()
   // Case matters only where SI prefixes would clash (mm vs Mm); none of ours do except m vs M.
   return quantity === 'length' ? trimmed : trimmed.toLowerCase()
 }
@@ -93,9 +92,9 @@ export function isKnownUnit(unit: string): boolean {
 export function requireUnitFactor(unit: string, quantity: Quantity, columnName: string): number {
   const factor = unitFactor(unit, quantity)
   if (factor === null) {
-    const shown = unit.trim() === '' ? 'no unit' : `unit '${unit.trim()}'`
+    const shown = unit.trim() === '' ? 'no unit' : `unit ${quoted(unit.trim())}`
     throw new TensileInputError(
-      `Column '${columnName}': ${shown} is not recognised as a ${quantity} unit`,
+      `Column ${quoted(columnName)}: ${shown} is not recognised as a ${quantity} unit`,
     )
   }
   return factor

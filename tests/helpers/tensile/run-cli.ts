@@ -3,6 +3,12 @@ import path from 'node:path'
 
 export const REPO_ROOT = path.resolve(import.meta.dirname, '../../..')
 
+/**
+ * A generous bound for a test that starts the command line (about a second each, several
+ * seconds on a machine busy with other test runs): it catches a hang, it times nothing.
+ */
+export const CLI_TEST_TIMEOUT_MS = 60_000
+
 export interface CliRun {
   status: number | null
   stdout: string

@@ -34,3 +34,28 @@ export const TEMPERED_STEEL: RambergOsgoodSpec = {
   fractureStressRatio: 0.7,
   samples: 3000,
 }
+
+/*
+ * Rounded curves: no sharp end to the linear part, as austenitic stainless steels and many
+ * aluminium alloys show (Ramberg–Osgood n about 5 to 10). Invented, plausible values; the
+ * tests set n.
+ */
+export const ROUNDED_STAINLESS: RambergOsgoodSpec = {
+  modulusMPa: 193_000,
+  sigma0MPa: 260,
+  n: 6,
+  agPct: 40,
+  fractureStrain: 0.5,
+  fractureStressRatio: 0.8,
+  samples: 3000,
+}
+
+export const ROUNDED_ALUMINIUM: RambergOsgoodSpec = {
+  modulusMPa: 70_000,
+  sigma0MPa: 270,
+  n: 8,
+  agPct: 8,
+  fractureStrain: 0.12,
+  fractureStressRatio: 0.85,
+  samples: 3000,
+}

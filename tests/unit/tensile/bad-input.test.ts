@@ -1,11 +1,13 @@
 import { mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { rambergOsgoodCurve } from '../../helpers/tensile/curves'
 import { PLAIN_FORMAT, writeRecord } from '../../helpers/tensile/dialects'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
 import { STRUCTURAL_STEEL } from '../../helpers/tensile/specimens'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 const directory = mkdtempSync(path.join(tmpdir(), 'fractolog-bad-'))
 const good = writeRecord(rambergOsgoodCurve({ ...STRUCTURAL_STEEL, samples: 200 }), PLAIN_FORMAT)

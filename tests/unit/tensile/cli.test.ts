@@ -1,12 +1,14 @@
 import { mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { MPA_PER_KSI } from '../../../shared/tensile'
 import { rambergOsgoodCurve, withToe } from '../../helpers/tensile/curves'
 import { PLAIN_FORMAT, writeRecord } from '../../helpers/tensile/dialects'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
 import { TEMPERED_STEEL } from '../../helpers/tensile/specimens'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 const directory = mkdtempSync(path.join(tmpdir(), 'fractolog-cli-'))
 const curve = withToe(rambergOsgoodCurve(TEMPERED_STEEL), 0.0005, 100)

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import {
   evaluateConformity,
   findSpecification,
-  type DecisionRule,
+  type ConformityBasis,
   type SpecificationRecord,
   type TensileResult,
 } from '../../../shared/tensile'
@@ -12,7 +12,18 @@ function result(overrides: Partial<TensileResult> = {}): TensileResult {
   const area = (Math.PI / 4) * 10 ** 2 // d0 = 10 mm, so 5.65√S0 = 50.07 mm and 4D = 40 mm
   return {
     modulusGPa: 205,
-    modulusFit: { fromMPa: 40, toMPa: 250, rSquared: 0.9999, points: 100 },
+    modulusFit: {
+      fromMPa: 40,
+      toMPa: 250,
+      rSquared: 0.9999,
+      points: 100,
+      chosenBy: 'automatic',
+      rounded: false,
+      fromPoint: 20,
+      toPoint: 119,
+      fromStrainPct: 0.02,
+      toStrainPct: 0.12,
+    },
     strainOriginShiftPct: 0,
     proportionalLimitMPa: 300,
     offsetPct: 0.2,
@@ -54,13 +65,20 @@ function spec(designation: string): SpecificationRecord {
   return found
 }
 
-const SIMPLE: DecisionRule = { kind: 'simple' }
-const GUARD: DecisionRule = { kind: 'guard', uncertaintyMPa: 5, uncertaintyPct: 1 }
+const SIMPLE: ConformityBasis = { rule: 'simple', uncertainty: null, edition: null }
+const GUARD: ConformityBasis = {
+  rule: 'guard',
+  uncertainty: {
+    expanded: { 'Rp0.2': 5, ReH: 5, 'Rt0.5': 5, Rm: 5, A: 1, Z: 1 },
+    source: 'uncertainty budget of the tensile machine',
+  },
+  edition: null,
+}
 
 function verdictOf(
   r: TensileResult,
   s: SpecificationRecord,
-  rule: DecisionRule,
+  rule: ConformityBasis,
   property: string,
   bound = 'min',
 ) {
@@ -237,5 +255,60 @@ describe('starter specification records', () => {
       expect(record.standard).toMatch(/^(ASTM|EN) /)
       expect(record.source).toBe('recalled from memory, not read from the standard')
     }
+  })
+})
+
+// ISO/IEC 17025 7.8.6 (recalled from memory): the decision rule and the uncertainty it uses are
+// stated with the statement of conformity; the lab's U differs from property to property.
+describe('measurement uncertainty as an input to conformity', () => {
+  const s355 = spec('S355J2')
+  const perProperty: ConformityBasis = {
+    rule: 'guard',
+    uncertainty: { expanded: { 'Rp0.2': 8, Rm: 3, A: 0.4 }, source: 'budget TB-7, k = 2' },
+    edition: '2019',
+  }
+  const continuous = result({
+    discontinuousYielding: false,
+    upperYieldMPa: null,
+    yieldStrengthsMPa: { '0.2': 361 },
+    tensileStrengthMPa: 474,
+    elongationAfterFracturePct: 22.5,
+  })
+  const conformity = evaluateConformity(continuous, s355, perProperty)
+  const item = (property: string, bound = 'min') =>
+    conformity.items.find((i) => i.property === property && i.bound === bound)
+
+  it('guards each property with its own U', () => {
+    expect(item('Rp0.2')).toMatchObject({ uncertainty: 8, verdict: 'inconclusive' }) // 361 − 355 < 8
+    expect(item('Rm')).toMatchObject({ uncertainty: 3, verdict: 'pass' }) // 474 − 470 > 3
+    expect(item('A (5.65√S0)')).toMatchObject({ uncertainty: 0.4, verdict: 'pass' }) // 0.5 > 0.4
+  })
+
+  it('calls an item inconclusive when no U was stated for it under the guard band', () => {
+    const noRm = evaluateConformity(continuous, s355, {
+      ...perProperty,
+      uncertainty: { expanded: { 'Rp0.2': 8 }, source: null },
+    })
+    const rm = noRm.items.find((i) => i.property === 'Rm' && i.bound === 'min')
+    expect(rm?.verdict).toBe('inconclusive')
+    expect(rm?.note).toMatch(/no expanded uncertainty stated for Rm/)
+  })
+
+  it('states the source of U, the rule and the cited edition with the verdict', () => {
+    expect(conformity.uncertainty?.source).toBe('budget TB-7, k = 2')
+    expect(conformity.rule).toMatch(/guard band.*Rp0\.2 8 MPa.*budget TB-7/)
+    expect(conformity.specification.edition).toBe('2019')
+  })
+
+  it('reports U beside each value under simple acceptance without using it', () => {
+    const simple = evaluateConformity(continuous, s355, { ...perProperty, rule: 'simple' })
+    const rp = simple.items.find((i) => i.property === 'Rp0.2')
+    expect(rp).toMatchObject({ uncertainty: 8, verdict: 'pass' })
+    expect(simple.rule).toMatch(/simple acceptance.*not used in the decision/)
+  })
+
+  it('marks every verdict indicative: a failed part’s specimens are not its test pieces', () => {
+    expect(conformity.caution).toMatch(/specimens cut from a failed part/)
+    expect(conformity.caution).toMatch(/location, orientation and size/)
   })
 })

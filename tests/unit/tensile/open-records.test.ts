@@ -1,7 +1,9 @@
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { labValues, OPEN_RECORDS_DIR, openRecordFiles } from '../../helpers/tensile/open-records'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 // Reference: the originating lab's own evaluation (DIN EN ISO 6892-1) stated in each open
 // 42CrMoS4 record (Fraunhofer IWM / IWT, MaterialDigital, CC BY 4.0; copied with attribution

@@ -1,8 +1,10 @@
 import path from 'node:path'
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { summariseValues } from '../../../shared/tensile'
 import { OPEN_RECORDS_DIR } from '../../helpers/tensile/open-records'
-import { runAnalyze } from '../../helpers/tensile/run-cli'
+import { CLI_TEST_TIMEOUT_MS, runAnalyze } from '../../helpers/tensile/run-cli'
+
+vi.setConfig({ testTimeout: CLI_TEST_TIMEOUT_MS })
 
 // Reference: the sample mean and the sample standard deviation with n − 1 in the denominator
 // (the usual definition; for 1, 2, 3, 4 it is √(5/3)).

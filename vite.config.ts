@@ -1,13 +1,27 @@
-import { readdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { readdirSync } from 'node:fs'
+import { readFile, writeFile } from 'node:fs/promises'
 import { join } from 'node:path'
 import { fileURLToPath, URL } from 'node:url'
-import { brotliCompressSync, constants, gzipSync } from 'node:zlib'
+import { promisify } from 'node:util'
+import { brotliCompress, constants, gzip as gzipCompress } from 'node:zlib'
 import { PrimeVueResolver } from '@primevue/auto-import-resolver'
 import vue from '@vitejs/plugin-vue'
 import Components from 'unplugin-vue-components/vite'
 import { defineConfig, type Plugin } from 'vite'
 
 const COMPRESSIBLE = /\.(js|css|html|svg|json|txt)$/
+const brotli = promisify(brotliCompress)
+const gzip = promisify(gzipCompress)
+
+async function writeCompressedCopies(path: string): Promise<void> {
+  const bytes = await readFile(path)
+  const [smallest, gzipped] = await Promise.all([
+    brotli(bytes, { params: { [constants.BROTLI_PARAM_QUALITY]: constants.BROTLI_MAX_QUALITY } }),
+    gzip(bytes, { level: 9 }),
+  ])
+  if (smallest.length < bytes.length) await writeFile(`${path}.br`, smallest)
+  if (gzipped.length < bytes.length) await writeFile(`${path}.gz`, gzipped)
+}
 
 /**
  * Writes a brotli (.br, strongest setting) and a gzip (.gz, level 9) copy beside every text file
@@ -21,20 +35,10 @@ function precompress(): Plugin {
     configResolved: (config) => {
       outDir = config.build.outDir
     },
-    closeBundle: () => {
+    closeBundle: async () => {
       const files = readdirSync(outDir, { recursive: true, encoding: 'utf8' })
-      for (const file of files.filter(
-        (name) => COMPRESSIBLE.test(name) && !name.startsWith('.vite'),
-      )) {
-        const path = join(outDir, file)
-        const bytes = readFileSync(path)
-        const brotli = brotliCompressSync(bytes, {
-          params: { [constants.BROTLI_PARAM_QUALITY]: constants.BROTLI_MAX_QUALITY },
-        })
-        const gzip = gzipSync(bytes, { level: 9 })
-        if (brotli.length < bytes.length) writeFileSync(`${path}.br`, brotli)
-        if (gzip.length < bytes.length) writeFileSync(`${path}.gz`, gzip)
-      }
+      const served = files.filter((name) => COMPRESSIBLE.test(name) && !name.startsWith('.vite'))
+      await Promise.all(served.map((file) => writeCompressedCopies(join(outDir, file))))
     },
   }
 }

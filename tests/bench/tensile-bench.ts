@@ -6,6 +6,7 @@ import { analyseCurve, buildCurve, importRecord } from '../../shared/tensile'
 import { rambergOsgoodCurve, withStressNoise } from '../helpers/tensile/curves'
 import { PLAIN_FORMAT, writeRecord } from '../helpers/tensile/dialects'
 import { STRUCTURAL_STEEL } from '../helpers/tensile/specimens'
+import { printCommandLineStart } from './cli-start'
 
 /*
  * Benchmark: import and analysis of 10k, 100k and 1M-point records against a bare
@@ -62,7 +63,7 @@ function measure(file: string) {
   return { points, baseline: median(baseline), import: median(imports), analysis: median(analyses) }
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const directory = mkdtempSync(path.join(tmpdir(), 'fractolog-bench-'))
   console.log(
     'points      import ms  analysis ms  import+analysis ms  baseline ms  ratio  peak RSS MB',
@@ -80,9 +81,10 @@ function main(): void {
           .join(' '),
       )
     }
+    await printCommandLineStart(directory, readFileSync(writeSample(directory, 10_000), 'utf8'))
   } finally {
     rmSync(directory, { recursive: true, force: true })
   }
 }
 
-main()
+await main()

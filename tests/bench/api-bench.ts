@@ -135,8 +135,8 @@ async function main(): Promise<void> {
     )
     children.push(
       await startChild(
-        'npx',
-        ['tsx', 'tests/bench/bare-floor-server.ts'],
+        process.execPath,
+        ['--import', 'tsx', 'tests/bench/bare-floor-server.ts'],
         { ...env, PORT: String(floorPort) },
         /ready/,
       ),
@@ -186,7 +186,10 @@ async function main(): Promise<void> {
   }
 }
 
-main().catch((error: unknown) => {
-  console.error(error instanceof Error ? error.message : String(error))
-  process.exit(1)
-})
+main().then(
+  () => process.exit(0),
+  (error: unknown) => {
+    console.error(error instanceof Error ? error.message : String(error))
+    process.exit(1)
+  },
+)

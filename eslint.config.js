@@ -9,7 +9,14 @@ export default defineConfigWithVueTs(
   },
   {
     name: 'app/files-to-ignore',
-    ignores: ['**/dist/**', '**/coverage/**', '.data/**', 'uploads/**', 'tests/fixtures/**'],
+    ignores: [
+      '**/dist/**',
+      'dist-server/**',
+      '**/coverage/**',
+      '.data/**',
+      'uploads/**',
+      'tests/fixtures/**',
+    ],
   },
   pluginVue.configs['flat/essential'],
   vueTsConfigs.recommended,

@@ -13,6 +13,7 @@ const staticChecks: [string, string[]][] = [
   ['prettier', ['--check', '.']],
   ['vue-tsc', ['--build', '--force']],
   ['vite', ['build', '--logLevel', 'warn']],
+  ['tsx', ['scripts/build-server.ts']],
 ]
 
 interface Counts {

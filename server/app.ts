@@ -1,6 +1,5 @@
-import { existsSync } from 'node:fs'
 import { resolve, sep } from 'node:path'
-import { fileURLToPath } from 'node:url'
+import compression from 'compression'
 import express, { type Express } from 'express'
 import helmet from 'helmet'
 import morgan from 'morgan'
@@ -9,6 +8,7 @@ import type { Db } from './db/knex'
 import { csrfProtection } from './auth/csrf'
 import { createPassport } from './auth/passport'
 import { createSessionMiddleware, enforceAbsoluteLifetime } from './auth/session'
+import { serveClient } from './client-files'
 import { apiNotFound, errorHandler } from './middleware/error-handler'
 import { requirePasswordSet, requireSignedIn } from './middleware/require-auth'
 import { authRoutes } from './routes/auth'
@@ -16,6 +16,7 @@ import { caseRoutes } from './routes/cases'
 import { dashboardRoutes } from './routes/dashboard'
 import { healthRoutes } from './routes/health'
 import { organisationRoutes } from './routes/organisations'
+import { projectRoot } from './project-root'
 import { peopleRoutes, staffRoutes } from './routes/people'
 import { createCaseService } from './services/cases'
 import { createOrganisationService } from './services/organisations'
@@ -35,7 +36,7 @@ export interface AppDeps {
   log?: (error: unknown) => void
 }
 
-const defaultClientDir = resolve(fileURLToPath(import.meta.url), '../../dist')
+const defaultClientDir = resolve(projectRoot(), 'dist')
 
 function securityHeaders(config: Config) {
   return helmet({
@@ -60,19 +61,13 @@ function securityHeaders(config: Config) {
   })
 }
 
-function serveClient(app: Express, clientDir: string): void {
-  if (!existsSync(resolve(clientDir, 'index.html'))) return
-  app.use(express.static(clientDir, { index: false, maxAge: '1h' }))
-  app.get('/{*path}', (_req, res) => {
-    res.sendFile(resolve(clientDir, 'index.html'), { maxAge: 0 })
-  })
-}
-
 function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknown) => void) {
   const { db, config } = deps
   const people = createPeopleService(db, { passwordCost: config.passwordCost })
   const passport = createPassport(people)
   const api = express.Router()
+  // The built client is compressed ahead of time; answers of the API are compressed here.
+  api.use(compression())
   api.use(express.json({ limit: '100kb' }))
   api.use(createSessionMiddleware(db, config).middleware)
   api.use(enforceAbsoluteLifetime(config))

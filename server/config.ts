@@ -11,7 +11,8 @@ const ConfigSchema = z.object({
   DATABASE_URL: z.url({ protocol: /^(mysql|mariadb)$/ }).optional(),
   SESSION_SECRET: z.string().min(32).optional(),
   DEMO_PASSWORD: z.string().min(8).default('demo-password'),
-  DEMO_DATA: booleanFlag.optional(),
+  DEMO_DATA: booleanFlag.default(false),
+  PUBLIC_URL: z.url({ protocol: /^https?$/ }).optional(),
   LOG_REQUESTS: booleanFlag.default(true),
   UPLOADS_DIR: z.string().min(1).default('uploads'),
   SESSION_IDLE_MINUTES: z.coerce
@@ -37,9 +38,11 @@ export type Config = {
   host: string
   port: number
   databaseUrl: string | undefined
+  /** where people reach the product: the base of links that leave it (e-mail, labels) */
+  publicUrl: string
   sessionSecret: string
   demoPassword: string
-  /** demo data is seeded only outside production, and never when switched off */
+  /** `npm start` seeds the demo only when asked (it asks by default); never in production */
   demoData: boolean
   logRequests: boolean
   uploadsDir: string
@@ -51,6 +54,11 @@ export type Config = {
 }
 
 export class ConfigError extends Error {}
+
+/** The listening address as a URL, with an IPv6 host in brackets. */
+function listeningUrl(host: string, port: number): string {
+  return `http://${host.includes(':') ? `[${host}]` : host}:${port}`
+}
 
 /** Reads the environment once; a bad value stops start with one line naming the variable. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -69,9 +77,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: value.HOST,
     port: value.PORT,
     databaseUrl: value.DATABASE_URL,
+    publicUrl: (value.PUBLIC_URL ?? listeningUrl(value.HOST, value.PORT)).replace(/\/+$/, ''),
     sessionSecret: value.SESSION_SECRET ?? 'development-only-secret-not-for-production-use',
     demoPassword: value.DEMO_PASSWORD,
-    demoData: !production && (value.DEMO_DATA ?? true),
+    demoData: !production && value.DEMO_DATA,
     logRequests: value.LOG_REQUESTS,
     uploadsDir: value.UPLOADS_DIR,
     sessionIdleMinutes: value.SESSION_IDLE_MINUTES,

@@ -1,8 +1,8 @@
-import { ConnectSessionKnexStore } from 'connect-session-knex'
 import type { RequestHandler } from 'express'
 import session from 'express-session'
 import type { Knex } from 'knex'
 import type { Config } from '../config'
+import { SessionStore } from './session-store'
 
 declare module 'express-session' {
   interface SessionData {
@@ -19,11 +19,11 @@ export interface SessionHandle {
 
 /**
  * Sessions live in MariaDB (several API processes can share them). The cookie rolls with every
- * request, which gives the idle timeout; `enforceAbsoluteLifetime` ends a session that is older
+ * request, which gives the idle timeout (the stored expiry follows at most once a minute); `enforceAbsoluteLifetime` ends a session that is older
  * than the absolute limit however active it is.
  */
 export function createSessionMiddleware(db: Knex, config: Config): SessionHandle {
-  const store = new ConnectSessionKnexStore({
+  const store = new SessionStore({
     knex: db,
     tableName: 'sessions',
     createTable: false,

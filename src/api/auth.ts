@@ -1,8 +1,9 @@
 import type { ChangePasswordRequest, LoginRequest, SessionUser } from '../../shared/schemas/auth'
 import { refreshCsrfToken, request } from './client'
 
-export async function fetchSessionUser(): Promise<SessionUser> {
-  const { data } = await request<{ data: { user: SessionUser } }>('GET', '/auth/me')
+/** The signed-in person, or null for a visitor who is not signed in. */
+export async function fetchSessionUser(): Promise<SessionUser | null> {
+  const { data } = await request<{ data: { user: SessionUser | null } }>('GET', '/auth/me')
   return data.user
 }
 

@@ -45,9 +45,7 @@ export function installSessionGuard(router: Router): void {
     return true
   })
 
-  onSessionProblem((error, path) => {
-    // Asking who is signed in answers 401 as part of its ordinary work.
-    if (path === '/auth/me') return
+  onSessionProblem((error) => {
     const current = router.currentRoute.value
     if (error.code === 'password_change_required') {
       if (current.name !== 'set-password') void router.push(withReturn('set-password', current))

@@ -1,7 +1,7 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import * as authApi from '@/api/auth'
-import { ApiError, refreshCsrfToken } from '@/api/client'
+import { refreshCsrfToken } from '@/api/client'
 import type { ChangePasswordRequest, LoginRequest, SessionUser } from '../../shared/schemas/auth'
 import type { Role } from '../../shared/schemas/roles'
 import { resetAllStores } from './reset-all'
@@ -21,14 +21,8 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   async function fetchUser(): Promise<void> {
-    try {
-      const [sessionUser] = await Promise.all([authApi.fetchSessionUser(), refreshCsrfToken()])
-      user.value = sessionUser
-    } catch (error) {
-      // Being signed out is the ordinary start for a visitor, not an error to report.
-      if (!(error instanceof ApiError && error.status === 401)) throw error
-      user.value = null
-    }
+    const [sessionUser] = await Promise.all([authApi.fetchSessionUser(), refreshCsrfToken()])
+    user.value = sessionUser
     loaded.value = true
   }
 

@@ -150,16 +150,22 @@ describe('sign-out and session end', () => {
   it('ends the session: the old cookie no longer works', async () => {
     const session = await signedIn(app, investigator.email, investigator.password)
     await session.post('/api/auth/logout').expect(204)
-    await session.get('/api/auth/me').expect(401)
+    expect(await session.signedInId()).toBeNull()
     await session.get('/api/cases').expect(401)
   })
 
   it('answers signed-out calls with 401', async () => {
-    for (const path of ['/api/auth/me', '/api/cases', '/api/people', '/api/organisations']) {
+    for (const path of ['/api/cases', '/api/people', '/api/organisations', '/api/staff']) {
       const response = await request(app).get(path)
       expect(response.status, path).toBe(401)
       expect(response.body.error.code).toBe('unauthenticated')
     }
+  })
+
+  it('tells a signed-out visitor that nobody is signed in, without an error status', async () => {
+    const response = await request(app).get('/api/auth/me')
+    expect(response.status).toBe(200)
+    expect(response.body).toEqual({ data: { user: null } })
   })
 
   it('refuses a deactivated person and ends their open sessions', async () => {
@@ -167,7 +173,7 @@ describe('sign-out and session end', () => {
     const admin = await makePerson(db, ['admin'])
     const leaving = await makePerson(db, ['client'], { organisationId })
     const theirSession = await signedIn(app, leaving.email, leaving.password)
-    await theirSession.get('/api/auth/me').expect(200)
+    expect(await theirSession.signedInId()).toBe(leaving.id)
     const adminSession = await signedIn(app, admin.email, admin.password)
     await adminSession
       .put(`/api/people/${leaving.id}`, {
@@ -178,7 +184,7 @@ describe('sign-out and session end', () => {
         active: false,
       })
       .expect(200)
-    await theirSession.get('/api/auth/me').expect(401)
+    expect(await theirSession.signedInId()).toBeNull()
     const again = await new ApiSession(app).signIn(leaving.email, leaving.password)
     expect(again.status).toBe(401)
   })
@@ -187,7 +193,7 @@ describe('sign-out and session end', () => {
 describe('session lifetime', () => {
   it('ends a session older than the absolute lifetime, however active', async () => {
     const session = await signedIn(app, investigator.email, investigator.password)
-    await session.get('/api/auth/me').expect(200)
+    expect(await session.signedInId()).toBe(investigator.id)
     const thirteenHoursAgo = Date.now() - 13 * 3_600_000
     const rows = (await db('sessions').select('sid', 'sess')) as { sid: string; sess: unknown }[]
     const stored = (value: unknown) =>
@@ -200,7 +206,8 @@ describe('session lifetime', () => {
         .where({ sid: row.sid })
         .update({ sess: JSON.stringify(sess) })
     }
-    await session.get('/api/auth/me').expect(401)
+    expect(await session.signedInId()).toBeNull()
+    await session.get('/api/cases').expect(401)
   })
 
   it('marks the cookie Secure in production behind an HTTPS proxy', async () => {

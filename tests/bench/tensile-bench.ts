@@ -9,6 +9,7 @@ import { rambergOsgoodCurve, withStressNoise } from '../helpers/tensile/curves'
 import { PLAIN_FORMAT, writeRecord } from '../helpers/tensile/dialects'
 import { REPO_ROOT } from '../helpers/tensile/run-cli'
 import { STRUCTURAL_STEEL } from '../helpers/tensile/specimens'
+import { printCommandLineStart } from './cli-start'
 
 /*
  * Benchmark: import and analysis of 10k, 100k and 1M-point records, read in chunks as the
@@ -102,7 +103,7 @@ const COLUMNS: [string, number][] = [
   ['CLI peak RSS MB', 16],
 ]
 
-function main(): void {
+async function main(): Promise<void> {
   const directory = mkdtempSync(path.join(tmpdir(), 'fractolog-bench-'))
   console.log(COLUMNS.map(([title, width]) => title.padStart(width)).join(' '))
   try {
@@ -115,9 +116,10 @@ function main(): void {
       shown.push(commandLinePeakMb(file).toFixed(1))
       console.log(shown.map((text, i) => text.padStart(COLUMNS[i]![1])).join(' '))
     }
+    await printCommandLineStart(directory, readFileSync(writeSample(directory, 10_000), 'utf8'))
   } finally {
     rmSync(directory, { recursive: true, force: true })
   }
 }
 
-main()
+await main()

@@ -53,8 +53,7 @@ describe('a client', () => {
 
     expect(listed).not.toContain('Drafting')
     expect(listed).toContain('Report in preparation')
-    await page.getByTestId('stage-filter').click()
-    await page.getByRole('option', { name: 'Under examination' }).click()
+    await page.getByTestId('stage-filter').selectOption({ label: 'Under examination' })
     await page.waitForURL(`${base}/cases?stage=under_examination`)
     await page.reload()
     // other journeys may move more of this client's cases along: judge only what the filter shows
@@ -83,10 +82,7 @@ describe('a client', () => {
     await expect.poll(() => page.getByTestId('not-found').isVisible()).toBe(true)
 
     expect(
-      unexpectedErrors(browser().errors, [
-        { status: 401, path: '/auth/me' },
-        { status: 404, path: `/cases/${otherCaseId}` },
-      ]),
+      unexpectedErrors(browser().errors, [{ status: 404, path: `/cases/${otherCaseId}` }]),
     ).toEqual([])
   })
 })

@@ -18,6 +18,12 @@ export class ApiSession {
     return this.token
   }
 
+  /** Who the server takes this session for: the person's id, or null when signed out. */
+  async signedInId(): Promise<number | null> {
+    const response = await this.agent.get('/api/auth/me').expect(200)
+    return (response.body.data.user?.id as number | undefined) ?? null
+  }
+
   async signIn(email: string, password: string) {
     await this.refreshToken()
     const response = await this.post('/api/auth/login', { email, password })

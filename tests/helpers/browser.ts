@@ -2,7 +2,7 @@ import { mkdirSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { chromium, type BrowserContext, type Page } from 'playwright-core'
-import { afterAll, beforeAll } from 'vitest'
+import { afterAll, beforeAll, expect } from 'vitest'
 
 export const SCREENSHOT_DIR = resolve(import.meta.dirname, '../e2e/screenshots')
 
@@ -71,7 +71,7 @@ function escapeRegExp(text: string): string {
 
 /**
  * Console errors left after removing the browser's own notes on API answers the journey expects
- * to fail (the 401 of "who is signed in?" while signed out, a 404 for a case one may not see).
+ * to fail (a refused sign-in, a 404 for a case one may not see).
  */
 export function unexpectedErrors(errors: string[], expected: ExpectedFailure[]): string[] {
   const patterns = expected.map(
@@ -93,9 +93,11 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.waitForURL((url) => url.pathname !== '/sign-in')
 }
 
-/** Waits until no table on the page shows its loading overlay, so a screenshot shows the rows. */
+/** Waits until no table on the page is loading (PrimeVue's overlay, or `aria-busy` on a list). */
 export async function waitForTable(page: Page): Promise<void> {
-  await page.locator('.p-datatable-mask').waitFor({ state: 'detached' })
+  await expect
+    .poll(() => page.locator('.p-datatable-mask, table[aria-busy="true"]').count())
+    .toBe(0)
 }
 
 /** One browser for the test file: opened before its tests, closed after; call it for the session. */

@@ -2,11 +2,24 @@ import { describe, expect, it } from 'vitest'
 import { ConfigError, loadConfig } from '../../server/config'
 
 describe('configuration from the environment', () => {
-  it('defaults to loopback on port 3000 with demo data outside production', () => {
+  it('defaults to loopback on port 3000, and to no demo data unless asked for', () => {
     const config = loadConfig({})
     expect(config.host).toBe('127.0.0.1')
     expect(config.port).toBe(3000)
-    expect(config.demoData).toBe(true)
+    expect(config.demoData).toBe(false)
+    expect(loadConfig({ DEMO_DATA: 'true' }).demoData).toBe(true)
+  })
+
+  it('links out through PUBLIC_URL, by default the listening address', () => {
+    expect(loadConfig({}).publicUrl).toBe('http://127.0.0.1:3000')
+    expect(loadConfig({ HOST: '0.0.0.0', PORT: '8080' }).publicUrl).toBe('http://0.0.0.0:8080')
+    expect(loadConfig({ HOST: '::1' }).publicUrl).toBe('http://[::1]:3000')
+    const behindProxy = loadConfig({ PUBLIC_URL: 'https://lab.example/fractolog/' })
+    expect(behindProxy.publicUrl).toBe('https://lab.example/fractolog')
+    expect(() => loadConfig({ PUBLIC_URL: 'lab.example' })).toThrow(
+      /^Configuration error: PUBLIC_URL/,
+    )
+    expect(() => loadConfig({ PUBLIC_URL: 'ftp://lab.example' })).toThrow(/PUBLIC_URL/)
   })
 
   it('never seeds demo data in production', () => {

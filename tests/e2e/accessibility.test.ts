@@ -1,0 +1,110 @@
+import { describe, expect, inject, it } from 'vitest'
+import { focusIsWithin, seriousAccessibilityProblems, tabTo } from '../helpers/accessibility'
+import { signIn, useBrowser, waitForTable } from '../helpers/browser'
+
+const browser = useBrowser()
+
+/*
+ * axe-core (WCAG 2.x A/AA and best practice) on every main screen each role reaches: no serious
+ * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
+ */
+
+type Screen = 'cases' | 'case' | 'new case' | 'people' | 'organisations'
+
+const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
+  { email: 'admin@demo.test', screens: ['cases', 'case', 'new case', 'people', 'organisations'] },
+  { email: 'investigator@demo.test', screens: ['cases', 'case', 'new case'] },
+  { email: 'lab@demo.test', screens: ['cases', 'case'] },
+  { email: 'reviewer@demo.test', screens: ['cases', 'case'] },
+  { email: 'client@demo.test', screens: ['cases', 'case'] },
+]
+
+async function openScreen(screen: Screen): Promise<void> {
+  const page = browser().page
+  const base = inject('baseUrl')
+  const addresses: Record<Exclude<Screen, 'case'>, string> = {
+    cases: '/cases',
+    'new case': '/cases/new',
+    people: '/admin/people',
+    organisations: '/admin/organisations',
+  }
+  if (screen === 'case') {
+    await openScreen('cases')
+    await page.getByTestId('case-table').locator('tbody a').first().click()
+    await page.getByTestId('case-page').waitFor()
+  } else {
+    await page.goto(`${base}${addresses[screen]}`)
+    await page.locator('main h1').first().waitFor()
+  }
+  await waitForTable(page)
+}
+
+async function signOut(): Promise<void> {
+  await browser().context.clearCookies()
+}
+
+describe('accessibility', () => {
+  it('finds no serious problem on the screens a signed-out visitor sees', async () => {
+    const page = browser().page
+    await page.goto(`${inject('baseUrl')}/sign-in`)
+    await page.getByTestId('sign-in-form').waitFor()
+    expect(await seriousAccessibilityProblems(page), 'sign-in').toEqual([])
+    await page.goto(`${inject('baseUrl')}/no/such/page`)
+    await page.getByTestId('not-found').waitFor()
+    expect(await seriousAccessibilityProblems(page), 'not found').toEqual([])
+  })
+
+  for (const { email, screens } of SCREENS_BY_ROLE) {
+    it(`finds no serious problem on the main screens of ${email}`, async () => {
+      const page = browser().page
+      await signIn(page, inject('baseUrl'), email, inject('demoPassword'))
+      const problems: string[] = []
+      for (const screen of screens) {
+        await openScreen(screen)
+        problems.push(
+          ...(await seriousAccessibilityProblems(page)).map((line) => `${screen}: ${line}`),
+        )
+      }
+      await signOut()
+      expect(problems).toEqual([])
+    })
+  }
+})
+
+describe('with the keyboard only', () => {
+  it('one signs in, finds an intake case in the list, opens it and reaches its status control', async () => {
+    const page = browser().page
+    const base = inject('baseUrl')
+    await page.goto(`${base}/sign-in`)
+    await page.getByTestId('sign-in-form').waitFor()
+    await tabTo(page, '#email')
+    await page.keyboard.type('admin@demo.test')
+    await page.keyboard.press('Tab')
+    await tabTo(page, '#password', 1)
+    await page.keyboard.type(inject('demoPassword'))
+    await page.keyboard.press('Enter')
+    await page.waitForURL(`${base}/cases`)
+    await waitForTable(page)
+
+    // the browser's own drop-down chooses by typing while it has focus
+    await tabTo(page, '[data-testid="status-filter"]')
+    await page.keyboard.type('Intake')
+    await page.waitForURL(/status=intake/)
+    await waitForTable(page)
+    await tabTo(page, '[data-testid="case-table"] tbody a')
+    const number = await page.evaluate(() => document.activeElement?.textContent?.trim())
+    await page.keyboard.press('Enter')
+    await page.getByTestId('case-page').waitFor()
+    expect(await page.getByTestId('case-number').textContent()).toBe(number)
+    expect(await page.getByTestId('case-status').textContent()).toBe('Intake')
+
+    await tabTo(page, '[data-testid^="move-to-"]')
+    await page.keyboard.press('Enter')
+    await expect.poll(() => page.getByRole('alertdialog').count()).toBe(1)
+    await expect.poll(() => focusIsWithin(page, '[role="alertdialog"]')).toBe(true)
+    await page.keyboard.press('Escape')
+    await expect.poll(() => page.getByRole('alertdialog').count()).toBe(0)
+    expect(await page.getByTestId('case-status').textContent()).toBe('Intake')
+    await signOut()
+  })
+})

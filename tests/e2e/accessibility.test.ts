@@ -9,20 +9,24 @@ const browser = useBrowser()
  * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
  */
 
-type Screen = 'cases' | 'case' | 'new case' | 'people' | 'organisations'
+type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
-  { email: 'admin@demo.test', screens: ['cases', 'case', 'new case', 'people', 'organisations'] },
-  { email: 'investigator@demo.test', screens: ['cases', 'case', 'new case'] },
-  { email: 'lab@demo.test', screens: ['cases', 'case'] },
-  { email: 'reviewer@demo.test', screens: ['cases', 'case'] },
-  { email: 'client@demo.test', screens: ['cases', 'case'] },
+  {
+    email: 'admin@demo.test',
+    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations'],
+  },
+  { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
+  { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
+  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case'] },
+  { email: 'client@demo.test', screens: ['home', 'cases', 'case'] },
 ]
 
 async function openScreen(screen: Screen): Promise<void> {
   const page = browser().page
   const base = inject('baseUrl')
   const addresses: Record<Exclude<Screen, 'case'>, string> = {
+    home: '/',
     cases: '/cases',
     'new case': '/cases/new',
     people: '/admin/people',
@@ -75,7 +79,7 @@ describe('with the keyboard only', () => {
   it('one signs in, finds an intake case in the list, opens it and reaches its status control', async () => {
     const page = browser().page
     const base = inject('baseUrl')
-    await page.goto(`${base}/sign-in`)
+    await page.goto(`${base}/sign-in?redirect=%2Fcases`)
     await page.getByTestId('sign-in-form').waitFor()
     await tabTo(page, '#email')
     await page.keyboard.type('admin@demo.test')

@@ -4,7 +4,7 @@ import express from 'express'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { createDb } from '../../server/db/knex'
-import { signIn, useBrowser, waitForTable } from '../helpers/browser'
+import { useBrowser, waitForTable } from '../helpers/browser'
 import {
   CLIENT_DIR,
   FIRST_VISIT_BUDGET,
@@ -70,9 +70,13 @@ describe('the first screens over the network', () => {
     annotate,
   }) => {
     const page = browser().page
-    await page.goto(`${base}/sign-in`)
+    // someone following a link to the case list: sign-in first, then the list
+    await page.goto(`${base}/cases`)
+    await page.waitForURL(/\/sign-in\?redirect=/)
     await page.getByTestId('sign-in-form').waitFor()
-    await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
+    await page.locator('#email').fill('investigator@demo.test')
+    await page.locator('#password').fill(inject('demoPassword'))
+    await page.getByTestId('sign-in-submit').click()
     await showCaseList(page)
 
     const scripts = scriptsOf(fetched)
@@ -94,7 +98,7 @@ describe('the first screens over the network', () => {
     const page = await browser().context.newPage()
     try {
       // the address the browser loaded last time; signed in, the app moves on to the case list
-      await page.goto(`${base}/sign-in`)
+      await page.goto(`${base}/sign-in?redirect=%2Fcases`)
       await showCaseList(page)
     } finally {
       await page.close()

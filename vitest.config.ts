@@ -27,6 +27,8 @@ export default defineConfig({
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
+          // a busy machine can take seconds to load a page; polls wait that long before failing
+          expect: { poll: { timeout: 10_000 } },
           environment: 'node',
           globalSetup: ['tests/helpers/e2e-global-setup.ts'],
           fileParallelism: false,

@@ -53,6 +53,7 @@ declare module 'vue' {
     ServiceEventDialog: typeof import('./components/history/ServiceEventDialog.vue')['default']
     ServiceLifeSummary: typeof import('./components/history/ServiceLifeSummary.vue')['default']
     ServiceTimeline: typeof import('./components/history/ServiceTimeline.vue')['default']
+    SortHeader: typeof import('./components/cases/SortHeader.vue')['default']
     Tag: typeof import('primevue/tag')['default']
     Textarea: typeof import('primevue/textarea')['default']
     Toast: typeof import('primevue/toast')['default']

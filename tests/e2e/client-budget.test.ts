@@ -97,13 +97,13 @@ describe('the first screens over the network', () => {
     fetched.length = 0
     const page = await browser().context.newPage()
     try {
-      // the address the browser loaded last time; signed in, the app moves on to the case list
-      await page.goto(`${base}/sign-in?redirect=%2Fcases`)
+      // the address the browser loaded last time: signed in now, it shows the case list at once
+      await page.goto(`${base}/cases`)
       await showCaseList(page)
     } finally {
       await page.close()
     }
-    expect(fetched.find(({ path }) => path === '/sign-in')?.status).toBe(304)
+    expect(fetched.find(({ path }) => path === '/cases')?.status).toBe(304)
     expect(fetched.filter(({ path }) => path.startsWith('/assets/'))).toEqual([])
   })
 })

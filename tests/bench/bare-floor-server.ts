@@ -58,9 +58,12 @@ function listFilter(
   }
   const q = params.get('q')
   if (q) {
-    const like = `%${q}%`
-    clauses.push('(c.number LIKE ? OR c.title LIKE ? OR c.component LIKE ? OR c.material LIKE ?)')
-    values.push(like, like, like, like)
+    // the same FULLTEXT index the API's search uses, one prefix word per token
+    const words = q.split(/[^\p{L}\p{N}]+/u).filter((word) => word.length >= 3)
+    clauses.push(
+      'MATCH (c.title, c.component, c.material, c.client_reference) AGAINST (? IN BOOLEAN MODE)',
+    )
+    values.push(words.map((word) => `+${word}*`).join(' '))
   }
   return { where: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', values }
 }
@@ -69,7 +72,7 @@ async function list(params: URLSearchParams, scope: number | null) {
   const { where, values } = listFilter(params, scope)
   const page = Math.max(1, Number(params.get('page') ?? 1))
   const [rows] = await pool.query<RowDataPacket[]>(
-    `SELECT ${COLUMNS} FROM cases c STRAIGHT_JOIN organisations o ON o.id = c.organisation_id ${where} ORDER BY c.id DESC LIMIT ${PAGE} OFFSET ${(page - 1) * PAGE}`,
+    `SELECT ${COLUMNS} FROM cases c STRAIGHT_JOIN organisations o ON o.id = c.organisation_id ${where} ORDER BY c.created_at DESC, c.id DESC LIMIT ${PAGE} OFFSET ${(page - 1) * PAGE}`,
     values,
   )
   const [[count]] = (await pool.query(

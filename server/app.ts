@@ -21,6 +21,7 @@ import { peopleRoutes, staffRoutes } from './routes/people'
 import { createCaseService } from './services/cases'
 import { createOrganisationService } from './services/organisations'
 import { createPeopleService } from './services/people'
+import { createEvidenceServices } from './services/evidence'
 import { createServiceEventService } from './services/service-events'
 import { attachmentRoutes } from './routes/service-events'
 import type { FileStorage } from './storage/file-storage'
@@ -81,7 +82,8 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
   const cases = createCaseService()
   const serviceEvents = createServiceEventService({ storage: deps.storage })
-  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents))
+  const evidence = createEvidenceServices()
+  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use(apiNotFound)

@@ -9,14 +9,22 @@ import { listActivity } from '../services/activity'
 import type { CaseService } from '../services/cases'
 import type { ServiceContext } from '../services/context'
 import type { ServiceEventService } from '../services/service-events'
+import type { EvidenceServices } from '../services/evidence'
+import { evidenceRoutes } from './evidence'
 import { serviceEventRoutes } from './service-events'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
 /** Routes of one case, behind the case loader. */
-function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+function oneCaseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  evidence: EvidenceServices,
+): Router {
   const router = Router({ mergeParams: true })
   router.use('/service-events', serviceEventRoutes(db, events))
+  router.use(evidenceRoutes(db, evidence))
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
     res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
@@ -50,7 +58,12 @@ function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService
   return router
 }
 
-export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+export function caseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  evidence: EvidenceServices,
+): Router {
   const router = Router()
   router.get(
     '/',
@@ -70,6 +83,6 @@ export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventSer
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events))
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, evidence))
   return router
 }

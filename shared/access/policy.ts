@@ -38,6 +38,12 @@ export type CaseAction =
   | 'case.viewActivity'
   /** add, change and remove service-history events and their documents */
   | 'case.editHistory'
+  /** register samples, record custody events, notices and their answers, and observations */
+  | 'case.handleEvidence'
+  /** place a legal hold on the case or one of its items */
+  | 'case.placeHold'
+  /** release a legal hold, record the resolution of an objection to destructive work */
+  | 'case.releaseEvidence'
 
 export type Action = GlobalAction | CaseAction
 
@@ -60,6 +66,9 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.changeStatus': ['admin', 'investigator'],
   'case.viewActivity': STAFF_ROLES,
   'case.editHistory': ['admin', 'investigator'],
+  'case.handleEvidence': ['admin', 'investigator', 'lab'],
+  'case.placeHold': ['admin', 'investigator'],
+  'case.releaseEvidence': ['admin'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -91,7 +100,10 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   if (holds(actor, 'admin')) return true
   const parts = partsIn(actor, caseRef)
   const unled = caseRef.leadInvestigatorId === null && holds(actor, 'investigator')
-  if (action === 'case.edit') return parts.lead || unled
+  if (action === 'case.edit' || action === 'case.placeHold') return parts.lead || unled
+  // the case's lab technician handles its samples as much as the investigators do
+  if (action === 'case.handleEvidence')
+    return parts.lead || parts.coInvestigator || parts.lab || unled
   return parts.lead || parts.coInvestigator || unled
 }
 
@@ -114,6 +126,9 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.changeStatus': true,
   'case.viewActivity': true,
   'case.editHistory': true,
+  'case.handleEvidence': true,
+  'case.placeHold': true,
+  'case.releaseEvidence': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

@@ -17,6 +17,10 @@ export const ERROR_STATUS = {
   version_conflict: 409,
   reviewer_is_lead: 409,
   invalid_transition: 409,
+  /** destructive work on an item without a notice that allows it (ASTM E860) */
+  notice_required: 409,
+  /** the case or item is under a legal hold: no sectioning, transfer or disposal */
+  legal_hold: 409,
   payload_too_large: 413,
   unsupported_file_type: 415,
   too_many_requests: 429,

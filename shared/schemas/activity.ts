@@ -12,6 +12,16 @@ export const ACTIVITY_KINDS = [
   'service_event.changed',
   'service_event.removed',
   'attachment.added',
+  'sample.received',
+  'sample.sectioned',
+  'custody_event.added',
+  'notice.recorded',
+  'notice.answered',
+  'notice.objection_resolved',
+  'hold.placed',
+  'hold.released',
+  'observation.recorded',
+  'observation.withdrawn',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -25,6 +35,16 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'service_event.changed': 'Service event changed',
   'service_event.removed': 'Service event removed',
   'attachment.added': 'Document attached',
+  'sample.received': 'Sample received',
+  'sample.sectioned': 'Sample sectioned',
+  'custody_event.added': 'Custody event recorded',
+  'notice.recorded': 'Notice of testing recorded',
+  'notice.answered': 'Answer to a notice recorded',
+  'notice.objection_resolved': 'Objection resolved',
+  'hold.placed': 'Legal hold placed',
+  'hold.released': 'Legal hold released',
+  'observation.recorded': 'Observation recorded',
+  'observation.withdrawn': 'Observation withdrawn',
 }
 
 export const ActivityQuery = z.strictObject({

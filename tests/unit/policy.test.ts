@@ -81,7 +81,13 @@ function caseIn(status: CaseState, unled = false): CaseRef {
 }
 
 type Row = Record<CaseAction, boolean>
-const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Row => ({
+const row = (
+  view: boolean,
+  internal: boolean,
+  edit: boolean,
+  move: boolean,
+  evidence: { handle: boolean; release: boolean } = { handle: move, release: false },
+): Row => ({
   'case.view': view,
   'case.viewInternal': internal,
   'case.viewActivity': internal,
@@ -89,16 +95,21 @@ const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Ro
   'case.changeStatus': move,
   // the people who move a case along also keep its service history
   'case.editHistory': move,
+  // evidence: those who move the case along, plus its lab technician, handle the samples; the
+  // people who edit the record place holds; only administrators release them
+  'case.handleEvidence': evidence.handle,
+  'case.placeHold': edit,
+  'case.releaseEvidence': evidence.release,
 })
 
 // While a case is open (every state but closed): view, internal view and activity, edit, move.
 const OPEN: Record<keyof typeof WHO, Row> = {
-  admin: row(true, true, true, true),
+  admin: row(true, true, true, true, { handle: true, release: true }),
   lead: row(true, true, true, true),
   coInvestigator: row(true, true, false, true),
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, true, true),
-  labTechnician: row(true, true, false, false),
+  labTechnician: row(true, true, false, false, { handle: true, release: false }),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
   ownClient: row(true, false, false, false),

@@ -123,6 +123,86 @@ const ROUTES: RouteCase[] = [
     expect: { admin: 400, investigator: 400, others: 403 },
   },
   { method: 'get', template: '/api/attachments/999999', expect: { others: 404 } },
+  // evidence: reads by the case loader (clients see their items marked for them, nothing else)
+  { method: 'get', template: '/api/cases/:ownCase/samples', expect: { others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/samples',
+    expect: { client: 404, others: 200 },
+  },
+  { method: 'get', template: '/api/cases/:ownCase/samples/999999', expect: { others: 404 } },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/samples',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:otherCase/samples/999999/custody-events',
+    body: {},
+    expect: { admin: 400, investigator: 400, client: 404, others: 403 },
+  },
+  { method: 'get', template: '/api/cases/:ownCase/notices', expect: { client: 403, others: 200 } },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/notices',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/notices/999999/answers',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/notices/999999/answers/999999/resolution',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'get',
+    template: '/api/cases/:ownCase/notice-period',
+    expect: { client: 403, others: 200 },
+  },
+  {
+    method: 'put',
+    template: '/api/cases/:ownCase/notice-period',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  { method: 'get', template: '/api/cases/:ownCase/holds', expect: { client: 403, others: 200 } },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/holds',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:otherCase/holds/999999/release',
+    body: {},
+    expect: { admin: 400, client: 404, others: 403 },
+  },
+  {
+    method: 'get',
+    template: '/api/cases/:ownCase/observations',
+    expect: { client: 403, others: 200 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/observations',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/observations/999999/withdraw',
+    body: {},
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
   { method: 'get', template: '/api/dashboard', expect: { others: 200 } },
 ]
 

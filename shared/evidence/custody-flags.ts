@@ -12,7 +12,7 @@ export function effectiveChain(events: readonly CustodyEvent[]): CustodyEvent[] 
   const corrected = new Set(events.map((event) => event.corrects).filter((id) => id !== null))
   return events
     .filter((event) => !corrected.has(event.id))
-    .toSorted((a, b) => a.at.localeCompare(b.at) || a.id - b.id)
+    .sort((a, b) => a.at.localeCompare(b.at) || a.id - b.id)
 }
 
 /**

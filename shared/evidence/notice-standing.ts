@@ -3,7 +3,7 @@ import type { NoticeAnswer, NoticeParty, NoticeStanding } from '../schemas/notic
 /** Each party's latest answer: answers are appended, the last one counts. */
 export function latestAnswers(answers: readonly NoticeAnswer[]): Map<number, NoticeAnswer> {
   const latest = new Map<number, NoticeAnswer>()
-  for (const answer of answers.toSorted((a, b) => a.id - b.id)) latest.set(answer.partyId, answer)
+  for (const answer of [...answers].sort((a, b) => a.id - b.id)) latest.set(answer.partyId, answer)
   return latest
 }
 

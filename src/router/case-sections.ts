@@ -1,5 +1,6 @@
-import type { RouteComponent } from 'vue-router'
+import type { RouteComponent, RouteRecordRaw } from 'vue-router'
 import type { Role } from '../../shared/schemas/roles'
+import { EVIDENCE_PAGES, EVIDENCE_SECTIONS } from './evidence-sections'
 
 const STAFF: readonly Role[] = ['admin', 'investigator', 'lab', 'reviewer']
 
@@ -11,7 +12,18 @@ export interface CaseSection {
   /** only people holding one of these roles see the section */
   roles?: readonly Role[]
   component: () => Promise<RouteComponent>
+  /** a section with sub-sections opens its first one */
+  children?: RouteRecordRaw[]
 }
+
+const evidenceChildren: RouteRecordRaw[] = [...EVIDENCE_SECTIONS, ...EVIDENCE_PAGES].map(
+  (page) => ({
+    name: page.name,
+    path: page.path,
+    component: page.component,
+    meta: { title: page.label, roles: STAFF },
+  }),
+)
 
 const notYet = () => import('@/views/case/CaseSectionEmptyView.vue')
 
@@ -29,7 +41,14 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     label: 'Service history',
     component: () => import('@/views/case/CaseServiceHistoryView.vue'),
   },
-  { name: 'case-evidence', path: 'evidence', label: 'Evidence', roles: STAFF, component: notYet },
+  {
+    name: 'case-evidence',
+    path: 'evidence',
+    label: 'Evidence',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseEvidenceView.vue'),
+    children: evidenceChildren,
+  },
   {
     name: 'case-mechanical-tests',
     path: 'mechanical-tests',

@@ -1,4 +1,4 @@
-import { createRouter, createWebHistory } from 'vue-router'
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 import type { Role } from '../../shared/schemas/roles'
 import { CASE_SECTIONS } from './case-sections'
 import { installSessionGuard } from './session-guard'
@@ -55,11 +55,14 @@ export const router = createRouter({
       component: () => import('@/views/CaseLayoutView.vue'),
       props: (route) => ({ id: Number(route.params.id) }),
       meta: { title: 'Case' },
-      children: CASE_SECTIONS.map((section) => ({
+      children: CASE_SECTIONS.map((section): RouteRecordRaw => ({
         path: section.path,
         name: section.name,
         component: section.component,
         meta: { title: section.label, roles: section.roles },
+        // a section with sub-sections opens its first one
+        children: section.children ?? [],
+        ...(section.children?.[0] ? { redirect: { name: section.children[0].name } } : {}),
       })),
     },
     {

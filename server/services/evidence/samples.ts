@@ -148,7 +148,8 @@ export function createSampleService(deps: { clock?: () => Date } = {}) {
   ) {
     const chain = effectiveChain(await eventsOf(trx, parent.id))
     const custodian = chain.at(-1)?.to ?? (await nameOf(trx, actorId))
-    const at = clock()
+    // to the minute, as people enter times: an event entered in the same minute sorts after it
+    const at = new Date(Math.floor(clock().getTime() / 60_000) * 60_000)
     const cut = [input.cutLocation, input.orientation].filter(Boolean).join(', ')
     const common = { caseId: parent.caseId, kind: 'sectioned', fromParty: custodian, at }
     await trx('custody_events').insert([

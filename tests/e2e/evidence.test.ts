@@ -1,0 +1,158 @@
+import { request, type APIRequestContext } from 'playwright-core'
+import { describe, expect, inject, it } from 'vitest'
+import { todayIso } from '../../shared/schemas/dates'
+import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
+
+const browser = useBrowser()
+
+async function apiAs(email: string): Promise<APIRequestContext> {
+  const api = await request.newContext({ baseURL: inject('baseUrl') })
+  const csrf = await (await api.get('/api/auth/csrf')).json()
+  const login = await api.post('/api/auth/login', {
+    headers: { 'X-CSRF-Token': csrf.data.token },
+    data: { email, password: inject('demoPassword') },
+  })
+  expect(login.status()).toBe(200)
+  return api
+}
+
+/** A fresh case of the fittings company naming one interested party, opened through the API. */
+async function openCase(): Promise<number> {
+  const api = await apiAs('investigator@demo.test')
+  try {
+    const organisations = (await (await api.get('/api/organisations')).json()).data as {
+      id: number
+      name: string
+    }[]
+    const fittings = organisations.find(({ name }) => name === 'Quillon Process Fittings')
+    const csrf = (await (await api.get('/api/auth/csrf')).json()).data.token as string
+    const created = await api.post('/api/cases', {
+      headers: { 'X-CSRF-Token': csrf },
+      data: {
+        title: 'Split flange bolt from a relief line',
+        organisationId: fittings?.id,
+        component: 'Flange bolt',
+        material: '42CrMo4',
+        interestedParties: [
+          { name: 'Harriet Vosk', organisation: 'Ellerwick Mutual', email: null, role: 'insurer' },
+        ],
+      },
+    })
+    expect(created.status(), await created.text()).toBe(201)
+    return (await created.json()).data.id as number
+  } finally {
+    await api.dispose()
+  }
+}
+
+describe('the evidence of a case', () => {
+  it('takes an item from receipt through notice, sectioning and transfer to an observation', async () => {
+    const page = browser().page
+    const base = inject('baseUrl')
+    const caseId = await openCase()
+    await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
+
+    // receive the item
+    await page.goto(`${base}/cases/${caseId}/evidence`)
+    await page.waitForURL(`${base}/cases/${caseId}/evidence/samples`)
+    await page.getByTestId('receive-sample').click()
+    await page.locator('#sample-description').fill('Flange bolt, both halves, thread end rusted')
+    await page.locator('#sample-received-from').fill('Site engineer, relief line R-7')
+    await page.locator('#sample-collected-by').fill('K. Amsel')
+    await page.locator('#sample-location').fill('Evidence store, shelf 1')
+    await page.getByTestId('save-sample').click()
+    await page.waitForURL(/\/evidence\/samples\/\d+$/)
+    const itemId = (await page.getByTestId('sample-item-id').textContent())?.trim() ?? ''
+    expect(itemId).toMatch(/^FL-\d{4}-\d{4}-S1$/)
+
+    // sectioning is refused until a notice allows it
+    await page.getByTestId('cut-piece').click()
+    await page.locator('#sample-description').fill('Fracture origin, longitudinal section')
+    await page.locator('#sample-cut-location').fill('First engaged thread')
+    await page.getByTestId('save-sample').click()
+    await expect
+      .poll(() => page.getByTestId('sample-form-error').textContent())
+      .toContain('No notice covers')
+    await page.keyboard.press('Escape')
+
+    // record the notice and the party's agreement
+    await page.getByTestId('evidence-notices').click()
+    await page.getByTestId('record-notice').click()
+    await page.getByTestId('notice-items').click()
+    await page.getByRole('option', { name: itemId }).click()
+    await page.keyboard.press('Escape')
+    await page.locator('#notice-work').fill('Section the origin for metallography')
+    await page.locator('#notice-planned-on').fill(todayIso())
+    await page.locator('#notice-authorised-by').fill('Client, plant manager')
+    await page.getByTestId('save-notice').click()
+    await expect.poll(() => page.getByTestId('notice-standing').textContent()).toContain('Waiting')
+    await page.getByRole('button', { name: 'Record answer' }).click()
+    await page.locator('#answer-comment').fill('Agreed by phone; will not attend.')
+    await page.getByTestId('save-answer').click()
+    await expect
+      .poll(() => page.getByTestId('notice-standing').textContent())
+      .toContain('Every party agreed')
+    await screenshot(page, 'evidence-notice')
+
+    // section it, then transfer the piece to the lab
+    await page.getByTestId('evidence-samples').click()
+    await page.getByTestId(`sample-${itemId}`).click()
+    await page.getByTestId('cut-piece').click()
+    await page.locator('#sample-description').fill('Fracture origin, longitudinal section')
+    await page.locator('#sample-cut-location').fill('First engaged thread')
+    await page.locator('#sample-orientation').fill('Longitudinal, through the origin')
+    await page.getByTestId('save-sample').click()
+    await expect.poll(() => page.getByTestId('pieces').textContent()).toContain(`${itemId}.1`)
+    await page.getByTestId('pieces').getByText(`${itemId}.1`).click()
+    await expect.poll(() => page.getByTestId('sample-item-id').textContent()).toBe(`${itemId}.1`)
+    await page.getByTestId('record-custody').click()
+    await page.locator('#custody-to').fill('Metallography lab')
+    await page.locator('#custody-purpose').fill('Mount and polish')
+    await page.locator('#custody-location').fill('Metallography lab, cabinet B')
+    await page.getByTestId('save-custody').click()
+    const history = page.getByTestId('custody-history')
+    await expect.poll(() => history.textContent()).toContain('Metallography lab')
+    expect(await page.getByTestId('gap-tag').count()).toBe(0)
+    expect(await page.getByTestId('flag-custody_gap').count()).toBe(0)
+    await waitForTable(page)
+    await screenshot(page, 'evidence-item')
+    const pieceUrl = page.url()
+
+    // record an observation citing the item
+    await page.getByTestId('evidence-observations').click()
+    await page.locator('#observation-text').fill('Beach marks run from the first engaged thread.')
+    await page.getByTestId('observation-items').click()
+    await page.getByRole('option', { name: `${itemId}.1` }).click()
+    await page.keyboard.press('Escape')
+    await page.getByTestId('save-observation').click()
+    await expect
+      .poll(() => page.getByTestId('observation-O-1').textContent())
+      .toContain(`${itemId}.1`)
+    await screenshot(page, 'evidence-observations')
+
+    // the label sheet carries a QR code for each item
+    await page.goto(`${base}/cases/${caseId}/evidence/labels`)
+    const label = page.getByTestId(`label-${itemId}.1`)
+    await expect.poll(() => label.locator('img').getAttribute('src')).toMatch(/^data:image\/png/)
+    await screenshot(page, 'evidence-labels')
+    expect(
+      unexpectedErrors(browser().errors, [
+        { status: 401, path: '/auth/me' },
+        { status: 409, path: `/cases/${caseId}/samples` },
+      ]),
+    ).toEqual([])
+
+    // a client of another organisation reaches none of it by URL
+    await page.getByTestId('sign-out').click()
+    await signIn(page, base, 'client@demo.test', inject('demoPassword'))
+    for (const url of [pieceUrl, `${base}/cases/${caseId}/evidence/observations`]) {
+      await page.goto(url)
+      await expect.poll(() => page.locator('body').textContent()).toMatch(/not found/i)
+    }
+    const api = await apiAs('client@demo.test')
+    for (const path of ['samples', 'notices', 'observations', 'holds']) {
+      expect((await api.get(`/api/cases/${caseId}/${path}`)).status(), path).toBe(404)
+    }
+    await api.dispose()
+  })
+})

@@ -135,6 +135,14 @@ describe('the evidence of a case', () => {
     const label = page.getByTestId(`label-${itemId}.1`)
     await expect.poll(() => label.locator('img').getAttribute('src')).toMatch(/^data:image\/png/)
     await screenshot(page, 'evidence-labels')
+    // printed, the sheet shows alone: the app's bars and buttons are hidden
+    await page.emulateMedia({ media: 'print' })
+    const seen = (testId: string) =>
+      page.getByTestId(testId).evaluate((element) => getComputedStyle(element).visibility)
+    expect(await seen('label-sheet')).toBe('visible')
+    expect(await seen('print-labels')).toBe('hidden')
+    expect(await seen('case-sections')).toBe('hidden')
+    await page.emulateMedia({ media: 'screen' })
     expect(
       unexpectedErrors(browser().errors, [
         { status: 401, path: '/auth/me' },

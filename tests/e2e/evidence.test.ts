@@ -1,6 +1,7 @@
 import { request, type APIRequestContext } from 'playwright-core'
 import { describe, expect, inject, it } from 'vitest'
 import { todayIso } from '../../shared/schemas/dates'
+import { seriousAccessibilityProblems } from '../helpers/accessibility'
 import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
 
 const browser = useBrowser()
@@ -93,6 +94,10 @@ describe('the evidence of a case', () => {
       .poll(() => page.getByTestId('notice-standing').textContent())
       .toContain('Every party agreed')
     await screenshot(page, 'evidence-notice')
+    const problems: string[] = []
+    const checkAccessibility = async (screen: string) =>
+      problems.push(...(await seriousAccessibilityProblems(page)).map((l) => `${screen}: ${l}`))
+    await checkAccessibility('notices')
 
     // section it, then transfer the piece to the lab
     await page.getByTestId('evidence-samples').click()
@@ -116,6 +121,7 @@ describe('the evidence of a case', () => {
     expect(await page.getByTestId('flag-custody_gap').count()).toBe(0)
     await waitForTable(page)
     await screenshot(page, 'evidence-item')
+    await checkAccessibility('item')
     const pieceUrl = page.url()
 
     // record an observation citing the item
@@ -129,6 +135,7 @@ describe('the evidence of a case', () => {
       .poll(() => page.getByTestId('observation-O-1').textContent())
       .toContain(`${itemId}.1`)
     await screenshot(page, 'evidence-observations')
+    await checkAccessibility('observations')
 
     // the label sheet carries a QR code for each item
     await page.goto(`${base}/cases/${caseId}/evidence/labels`)
@@ -143,6 +150,11 @@ describe('the evidence of a case', () => {
     expect(await seen('print-labels')).toBe('hidden')
     expect(await seen('case-sections')).toBe('hidden')
     await page.emulateMedia({ media: 'screen' })
+    await checkAccessibility('labels')
+    await page.getByTestId('evidence-samples').click()
+    await waitForTable(page)
+    await checkAccessibility('samples')
+    expect(problems).toEqual([])
     expect(
       unexpectedErrors(browser().errors, [
         { status: 401, path: '/auth/me' },

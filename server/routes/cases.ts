@@ -13,10 +13,19 @@ import { serviceEventRoutes } from './service-events'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
+/** Sub-routers of one case by path (`photos` → `/api/cases/:id/photos`), behind the loader. */
+export type CaseChildRoutes = Record<string, Router>
+
 /** Routes of one case, behind the case loader. */
-function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+function oneCaseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  children: CaseChildRoutes,
+): Router {
   const router = Router({ mergeParams: true })
   router.use('/service-events', serviceEventRoutes(db, events))
+  for (const [path, child] of Object.entries(children)) router.use(`/${path}`, child)
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
     res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
@@ -50,7 +59,12 @@ function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService
   return router
 }
 
-export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+export function caseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  children: CaseChildRoutes = {},
+): Router {
   const router = Router()
   router.get(
     '/',
@@ -70,6 +84,6 @@ export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventSer
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events))
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, children))
   return router
 }

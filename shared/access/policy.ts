@@ -38,6 +38,8 @@ export type CaseAction =
   | 'case.viewActivity'
   /** add, change and remove service-history events and their documents */
   | 'case.editHistory'
+  /** upload photographs, describe, calibrate and mark them */
+  | 'case.editPhotos'
 
 export type Action = GlobalAction | CaseAction
 
@@ -60,6 +62,7 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.changeStatus': ['admin', 'investigator'],
   'case.viewActivity': STAFF_ROLES,
   'case.editHistory': ['admin', 'investigator'],
+  'case.editPhotos': ['admin', 'investigator', 'lab'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -92,6 +95,8 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   const parts = partsIn(actor, caseRef)
   const unled = caseRef.leadInvestigatorId === null && holds(actor, 'investigator')
   if (action === 'case.edit') return parts.lead || unled
+  // the case's lab technician takes many of the photographs
+  if (action === 'case.editPhotos') return parts.lead || parts.coInvestigator || parts.lab || unled
   return parts.lead || parts.coInvestigator || unled
 }
 
@@ -114,6 +119,7 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.changeStatus': true,
   'case.viewActivity': true,
   'case.editHistory': true,
+  'case.editPhotos': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

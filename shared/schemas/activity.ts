@@ -12,6 +12,8 @@ export const ACTIVITY_KINDS = [
   'service_event.changed',
   'service_event.removed',
   'attachment.added',
+  'photo.added',
+  'photo.changed',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -25,6 +27,8 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'service_event.changed': 'Service event changed',
   'service_event.removed': 'Service event removed',
   'attachment.added': 'Document attached',
+  'photo.added': 'Photo added',
+  'photo.changed': 'Photo changed',
 }
 
 export const ActivityQuery = z.strictObject({

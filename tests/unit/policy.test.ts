@@ -63,6 +63,7 @@ const WHO: Record<string, { actor: Actor; unled?: boolean }> = {
     unled: true,
   },
   labTechnician: { actor: { id: 12, roles: ['lab'], organisationId: null } },
+  otherLabTechnician: { actor: { id: 17, roles: ['lab'], organisationId: null } },
   reviewer: { actor: { id: 13, roles: ['reviewer'], organisationId: null } },
   otherReviewer: { actor: { id: 18, roles: ['reviewer'], organisationId: null } },
   ownClient: { actor: { id: 30, roles: ['client'], organisationId: 7 } },
@@ -81,7 +82,13 @@ function caseIn(status: CaseState, unled = false): CaseRef {
 }
 
 type Row = Record<CaseAction, boolean>
-const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Row => ({
+const row = (
+  view: boolean,
+  internal: boolean,
+  edit: boolean,
+  move: boolean,
+  photos = move,
+): Row => ({
   'case.view': view,
   'case.viewInternal': internal,
   'case.viewActivity': internal,
@@ -89,6 +96,8 @@ const row = (view: boolean, internal: boolean, edit: boolean, move: boolean): Ro
   'case.changeStatus': move,
   // the people who move a case along also keep its service history
   'case.editHistory': move,
+  // photographs: the people who move the case along, and the case's lab technician
+  'case.editPhotos': photos,
 })
 
 // While a case is open (every state but closed): view, internal view and activity, edit, move.
@@ -98,7 +107,8 @@ const OPEN: Record<keyof typeof WHO, Row> = {
   coInvestigator: row(true, true, false, true),
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, true, true),
-  labTechnician: row(true, true, false, false),
+  labTechnician: row(true, true, false, false, true),
+  otherLabTechnician: row(true, true, false, false),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
   ownClient: row(true, false, false, false),
@@ -113,6 +123,7 @@ const CLOSED: Record<keyof typeof WHO, Row> = {
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, false, false),
   labTechnician: row(true, true, false, false),
+  otherLabTechnician: row(true, true, false, false),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
   ownClient: row(true, false, false, false),

@@ -2,11 +2,11 @@ import type { Knex } from 'knex'
 import { PHOTO_MEDIA_TYPES, type Photo, type PhotoUpdate } from '../../../shared/schemas/photos'
 import { AppError, ValidationError } from '../../errors'
 import { displayName } from '../../storage/display-name'
-import type { FileStorage, StoredFile } from '../../storage/file-storage'
+import type { FileStorage } from '../../storage/file-storage'
 import { recogniseFileType } from '../../storage/recognise-type'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
-import { deriveCopies } from './image-derivatives'
+import { removeFiles, storePhotoFiles } from './photo-files'
 import { renderFigure } from './figure'
 import { findPhotoRow, toPhoto, visiblePhotos, type PhotoRow } from './photo-rows'
 
@@ -40,20 +40,6 @@ export function createPhotoService(deps: { storage: FileStorage; maxPixels?: num
     return toPhoto(await findPhotoRow(db, actor, caseId, photoId))
   }
 
-  /** Stores the three files; if any fails, none is left behind. */
-  async function storeCopies(path: string, copies: Awaited<ReturnType<typeof deriveCopies>>) {
-    const stored: StoredFile[] = []
-    try {
-      stored.push(await storage.putFile(path))
-      stored.push(await storage.put(copies.display.bytes))
-      stored.push(await storage.put(copies.thumbnail))
-      return stored as [StoredFile, StoredFile, StoredFile]
-    } catch (error) {
-      await Promise.all(stored.map((file) => storage.remove(file.key)))
-      throw error
-    }
-  }
-
   /**
    * Takes in an uploaded image held in a temporary file: type from its content, decoded whole
    * under the pixel limit, the original kept byte for byte with its SHA-256, display copy and
@@ -69,8 +55,8 @@ export function createPhotoService(deps: { storage: FileStorage; maxPixels?: num
     const fileName = displayName(upload.originalname, 'photo')
     const mediaType = await recogniseFileType(upload.path, PHOTO_MEDIA_TYPES, fileName)
     await checkSample(db, caseId, sampleId)
-    const copies = await deriveCopies(upload.path, fileName, deps.maxPixels)
-    const [original, display, thumbnail] = await storeCopies(upload.path, copies)
+    const files = await storePhotoFiles(storage, upload.path, fileName, deps.maxPixels)
+    const { copies, original, display, thumbnail } = files
     try {
       const id = await db.transaction(async (trx) => {
         const [newId] = (await trx('photos').insert({
@@ -99,7 +85,7 @@ export function createPhotoService(deps: { storage: FileStorage; maxPixels?: num
       })
       return get({ actor, db }, caseId, id)
     } catch (error) {
-      await Promise.all([original, display, thumbnail].map((file) => storage.remove(file.key)))
+      await removeFiles(storage, [original, display, thumbnail])
       throw error
     }
   }

@@ -46,10 +46,14 @@ export function casePhotoRoutes(db: Knex, photos: PhotoService, incomingDir: str
 
 const photoIdOf = (req: Request) => z.parse(z.looseObject({ id: Id }), req.params).id
 
-/** Files never change once stored, so a viewer's browser may keep them (privately). */
+/**
+ * Files never change once stored, so a viewer's browser may keep them (privately); keyed to the
+ * session cookie too, so whoever signs in next on the same browser is asked for again.
+ */
 function sendCopy(res: Response, mediaType: string, bytes: Buffer, fileName?: string) {
   res.setHeader('Content-Type', mediaType)
   res.setHeader('Cache-Control', 'private, max-age=31536000, immutable')
+  res.setHeader('Vary', 'Cookie')
   res.setHeader('X-Content-Type-Options', 'nosniff')
   res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox")
   if (fileName) {

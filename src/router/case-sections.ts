@@ -30,6 +30,13 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     component: () => import('@/views/case/CaseServiceHistoryView.vue'),
   },
   { name: 'case-evidence', path: 'evidence', label: 'Evidence', roles: STAFF, component: notYet },
+  // to move under Evidence once its sub-sections land
+  {
+    name: 'case-photos',
+    path: 'evidence/photos',
+    label: 'Photographs',
+    component: () => import('@/views/case/CasePhotosView.vue'),
+  },
   {
     name: 'case-mechanical-tests',
     path: 'mechanical-tests',

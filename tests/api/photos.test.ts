@@ -131,6 +131,8 @@ describe('uploading photographs', () => {
     const original = await download(sessions.lab, `/api/photos/${photo.id}/original`).expect(200)
     expect(Buffer.compare(original.body as Buffer, jpeg)).toBe(0)
     expect(original.headers['cache-control']).toContain('private')
+    // a cached copy is tied to the session cookie, so the next person signed in is checked anew
+    expect(original.headers.vary).toContain('Cookie')
 
     for (const copy of ['display', 'thumbnail']) {
       const served = await download(sessions.lab, `/api/photos/${photo.id}/${copy}`).expect(200)

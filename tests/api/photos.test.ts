@@ -5,9 +5,9 @@ import { join } from 'node:path'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
-import { knownStorageKeys } from '../../server/services/photos/photos'
 import type { FileStorage } from '../../server/storage/file-storage'
 import { createLocalStorage } from '../../server/storage/local-storage'
+import { sweepUploads } from '../../server/storage/sweep-uploads'
 import { MAX_PHOTO_BYTES } from '../../shared/schemas/photos'
 import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
 import { tinyPdf } from '../factories/files'
@@ -219,13 +219,15 @@ describe('uploading photographs', () => {
     expect(waiting).toEqual([])
   })
 
-  it('sweeps at start what a crash left: half-written files and files no record names', async () => {
+  it('sweeps at start what a crash left: waiting uploads, half-written files, files no record names', async () => {
     await addPhoto()
     const before = filesOnDisk().stored
     const stray = await local.put(Buffer.from('left by a crash'))
     writeFileSync(join(uploads, `${stray.key}.partial`), 'half')
-    expect(await local.sweep((keys) => knownStorageKeys(db, keys))).toBe(2)
+    writeFileSync(join(incomingDir, 'interrupted.upload'), 'part of an image')
+    expect(await sweepUploads(db, uploads)).toBe(3)
     expect(filesOnDisk().stored.sort()).toEqual(before.sort())
+    expect(filesOnDisk().waiting).toEqual([])
   })
 
   it('lets the case’s people upload and refuses the rest', async () => {

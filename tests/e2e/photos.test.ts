@@ -74,6 +74,14 @@ describe('photographs of a case', () => {
     })
     await expect.poll(() => page.getByTestId('photo-tile').count()).toBe(2)
 
+    // a file that is not an image is refused by its content, named, and offered a retry
+    const notes = join(folder, 'notes.jpg')
+    writeFileSync(notes, 'Crack found at the weld toe.\n')
+    await page.getByTestId('photo-input').setInputFiles([notes])
+    await expect.poll(() => page.getByTestId('upload-error').textContent()).toContain('notes.jpg')
+    expect(await page.getByTestId('upload-retry').count()).toBe(1)
+    expect(await page.getByTestId('photo-tile').count()).toBe(2)
+
     await page.getByTestId('photo-tile').first().click()
     const frame = page.getByTestId('photo-frame')
     await frame.waitFor()
@@ -167,6 +175,7 @@ describe('photographs of a case', () => {
     await screenshot(page, 'photos-other-client')
     const expected = [
       { status: 401, path: '/auth/me' },
+      { status: 415, path: `/cases/${/cases\/(\d+)/.exec(caseUrl)?.[1]}/photos` },
       ...['original', 'display', 'thumbnail', 'figure'].map((copy) => ({
         status: 404,
         path: `/photos/${photoId}/${copy}`,

@@ -24,6 +24,9 @@ import { createPeopleService } from './services/people'
 import { createEvidenceServices } from './services/evidence'
 import { createServiceEventService } from './services/service-events'
 import { attachmentRoutes } from './routes/service-events'
+import { casePhotoRoutes, photoRoutes } from './routes/photos'
+import { createPhotoService } from './services/photos/photos'
+import { incomingDirOf } from './middleware/upload'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
 
@@ -32,6 +35,8 @@ export interface AppDeps {
   config: Config
   /** where uploaded files go; by default the local folder UPLOADS_DIR */
   storage?: FileStorage
+  /** where uploads wait while they are checked; by default UPLOADS_DIR/incoming */
+  incomingDir?: string
   /** folder of the built client; served when present */
   clientDir?: string
   log?: (error: unknown) => void
@@ -83,8 +88,12 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const cases = createCaseService()
   const serviceEvents = createServiceEventService({ storage: deps.storage })
   const evidence = createEvidenceServices()
-  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence))
+  const photos = createPhotoService({ storage: deps.storage })
+  const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
+  const children = { photos: casePhotoRoutes(db, photos, incomingDir) }
+  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, children))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
+  api.use('/photos', ...signedIn, photoRoutes(db, cases, photos))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use(apiNotFound)
   api.use(errorHandler(log))

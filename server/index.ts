@@ -5,6 +5,7 @@ import type { Server } from 'node:http'
 import { createApp } from './app'
 import { ConfigError, loadConfig } from './config'
 import { createDb } from './db/knex'
+import { sweepUploads } from './storage/sweep-uploads'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -39,6 +40,8 @@ async function main(): Promise<void> {
   process.on('SIGINT', () => void shutdown('SIGINT'))
   process.on('SIGTERM', () => void shutdown('SIGTERM'))
 
+  const swept = await sweepUploads(db, config.uploadsDir)
+  if (swept > 0) console.log(`Removed ${swept} file(s) left behind by interrupted uploads.`)
   running.server = await listen(createApp({ db, config }), config.host, config.port)
   console.log(
     `Fractolog is running at ${config.publicUrl}/ (listening on ${config.host}:${config.port})`,

@@ -15,16 +15,21 @@ import { serviceEventRoutes } from './service-events'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
+/** Sub-routers of one case by path (`photos` → `/api/cases/:id/photos`), behind the loader. */
+export type CaseChildRoutes = Record<string, Router>
+
 /** Routes of one case, behind the case loader. */
 function oneCaseRoutes(
   db: Knex,
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
+  children: CaseChildRoutes,
 ): Router {
   const router = Router({ mergeParams: true })
   router.use('/service-events', serviceEventRoutes(db, events))
   router.use(evidenceRoutes(db, evidence))
+  for (const [path, child] of Object.entries(children)) router.use(`/${path}`, child)
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
     res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
@@ -63,6 +68,7 @@ export function caseRoutes(
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
+  children: CaseChildRoutes = {},
 ): Router {
   const router = Router()
   router.get(
@@ -83,6 +89,6 @@ export function caseRoutes(
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, evidence))
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, evidence, children))
   return router
 }

@@ -11,6 +11,7 @@ import {
 } from '../../shared/schemas/service-events'
 import { AppError, NotFound, ValidationError } from '../errors'
 import type { FileStorage } from '../storage/file-storage'
+import { displayName } from '../storage/display-name'
 import { recogniseType } from '../storage/recognise-type'
 import { recordAudit } from './audit'
 import type { ServiceContext } from './context'
@@ -60,13 +61,6 @@ function checkNotFuture(occurredOn: string | undefined, now: Date): void {
     const message = 'An event in the service history cannot be in the future.'
     throw new ValidationError(message, [{ path: 'occurredOn', message }])
   }
-}
-
-/** A safe name to show and offer for download: no path, no control characters. */
-function displayName(original: string): string {
-  const base = original.split(/[\\/]/).pop() ?? ''
-  const clean = base.replace(/[\p{Cc}\p{Cf}"]/gu, '').trim()
-  return (clean || 'document').slice(0, 191)
 }
 
 export function createServiceEventService(deps: { storage: FileStorage; clock?: () => Date }) {

@@ -44,6 +44,8 @@ export type CaseAction =
   | 'case.placeHold'
   /** release a legal hold, record the resolution of an objection to destructive work */
   | 'case.releaseEvidence'
+  /** upload photographs, describe, calibrate and mark them */
+  | 'case.editPhotos'
 
 export type Action = GlobalAction | CaseAction
 
@@ -69,6 +71,7 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.handleEvidence': ['admin', 'investigator', 'lab'],
   'case.placeHold': ['admin', 'investigator'],
   'case.releaseEvidence': ['admin'],
+  'case.editPhotos': ['admin', 'investigator', 'lab'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -104,6 +107,8 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   // the case's lab technician handles its samples as much as the investigators do
   if (action === 'case.handleEvidence')
     return parts.lead || parts.coInvestigator || parts.lab || unled
+  // the case's lab technician takes many of the photographs
+  if (action === 'case.editPhotos') return parts.lead || parts.coInvestigator || parts.lab || unled
   return parts.lead || parts.coInvestigator || unled
 }
 
@@ -129,6 +134,7 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.handleEvidence': true,
   'case.placeHold': true,
   'case.releaseEvidence': true,
+  'case.editPhotos': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

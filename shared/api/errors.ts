@@ -23,6 +23,10 @@ export const ERROR_STATUS = {
   legal_hold: 409,
   payload_too_large: 413,
   unsupported_file_type: 415,
+  /** an image with more pixels than the server decodes (a decompression bomb, or simply huge) */
+  image_too_large: 422,
+  /** an image that is truncated or corrupt */
+  image_unreadable: 422,
   too_many_requests: 429,
   internal_error: 500,
   /** a stored record failed its hash check */

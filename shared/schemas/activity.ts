@@ -22,6 +22,8 @@ export const ACTIVITY_KINDS = [
   'hold.released',
   'observation.recorded',
   'observation.withdrawn',
+  'photo.added',
+  'photo.changed',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -45,6 +47,8 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'hold.released': 'Legal hold released',
   'observation.recorded': 'Observation recorded',
   'observation.withdrawn': 'Observation withdrawn',
+  'photo.added': 'Photo added',
+  'photo.changed': 'Photo changed',
 }
 
 export const ActivityQuery = z.strictObject({

@@ -134,3 +134,67 @@ export async function request<T>(
     throw error
   }
 }
+
+function parseXhrAnswer<T>(xhr: XMLHttpRequest): T {
+  const body = (xhr.responseText ? JSON.parse(xhr.responseText) : undefined) as
+    { error?: { code?: string; message?: string; details?: unknown } } | undefined
+  if (xhr.status >= 200 && xhr.status < 300) return body as T
+  const error = body?.error
+  throw new ApiError(
+    xhr.status,
+    error?.code ?? 'http_error',
+    error?.message ?? `The server answered ${xhr.status}.`,
+    error?.details,
+  )
+}
+
+function postOnce<T>(
+  path: string,
+  form: FormData,
+  token: string,
+  onProgress: (share: number) => void,
+) {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest()
+    xhr.open('POST', `/api${path}`)
+    xhr.setRequestHeader('Accept', 'application/json')
+    xhr.setRequestHeader('X-CSRF-Token', token)
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable) onProgress(event.loaded / event.total)
+    }
+    xhr.onerror = () =>
+      reject(
+        new ApiError(0, 'network_error', 'The server cannot be reached. Check the connection.'),
+      )
+    xhr.onload = () => {
+      try {
+        resolve(parseXhrAnswer<T>(xhr))
+      } catch (error) {
+        reject(error)
+      }
+    }
+    xhr.send(form)
+  })
+}
+
+/**
+ * A multipart POST that reports how much of the body was sent (fetch cannot, for uploads), with
+ * the same CSRF handling and error answers as `request()`.
+ */
+export async function uploadWithProgress<T>(
+  path: string,
+  form: FormData,
+  onProgress: (share: number) => void,
+): Promise<T> {
+  const token = csrfToken ?? (await refreshCsrfToken())
+  try {
+    return await postOnce<T>(path, form, token, onProgress)
+  } catch (error) {
+    if (!(error instanceof ApiError)) throw error
+    if (error.code === 'csrf_invalid') {
+      return postOnce<T>(path, form, await refreshCsrfToken(), onProgress)
+    }
+    if (isSessionProblem(error)) sessionProblemListener?.(error, path)
+    throw error
+  }
+}

@@ -22,8 +22,12 @@ export const EVIDENCE_SECTIONS: EvidenceSection[] = [
     label: 'Notices',
     component: () => import('@/views/case/evidence/EvidenceNoticesView.vue'),
   },
-  // ── Photographs: the photos feature adds its sub-section here ─────────────────────────────
-  // { name: 'case-evidence-photos', path: 'photos', label: 'Photographs', component: … },
+  {
+    name: 'case-photos',
+    path: 'photos',
+    label: 'Photographs',
+    component: () => import('@/views/case/CasePhotosView.vue'),
+  },
   {
     name: 'case-evidence-observations',
     path: 'observations',

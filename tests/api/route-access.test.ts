@@ -204,6 +204,29 @@ const ROUTES: RouteCase[] = [
     expect: { admin: 400, investigator: 400, others: 403 },
   },
   { method: 'get', template: '/api/dashboard', expect: { others: 200 } },
+  { method: 'get', template: '/api/cases/:ownCase/photos', expect: { others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/photos',
+    expect: { client: 404, others: 200 },
+  },
+  // no file sent: 400 once past the access check (unled case: any investigator may add photos)
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/photos',
+    expect: { admin: 400, investigator: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:otherCase/photos',
+    expect: { admin: 400, investigator: 400, client: 404, others: 403 },
+  },
+  { method: 'get', template: '/api/photos/999999', expect: { others: 404 } },
+  { method: 'patch', template: '/api/photos/999999', body: {}, expect: { others: 404 } },
+  { method: 'get', template: '/api/photos/999999/original', expect: { others: 404 } },
+  { method: 'get', template: '/api/photos/999999/display', expect: { others: 404 } },
+  { method: 'get', template: '/api/photos/999999/thumbnail', expect: { others: 404 } },
+  { method: 'get', template: '/api/photos/999999/figure', expect: { others: 404 } },
 ]
 
 const pathOf = (route: RouteCase) =>

@@ -63,6 +63,7 @@ const WHO: Record<string, { actor: Actor; unled?: boolean }> = {
     unled: true,
   },
   labTechnician: { actor: { id: 12, roles: ['lab'], organisationId: null } },
+  otherLabTechnician: { actor: { id: 17, roles: ['lab'], organisationId: null } },
   reviewer: { actor: { id: 13, roles: ['reviewer'], organisationId: null } },
   otherReviewer: { actor: { id: 18, roles: ['reviewer'], organisationId: null } },
   ownClient: { actor: { id: 30, roles: ['client'], organisationId: 7 } },
@@ -100,6 +101,8 @@ const row = (
   'case.handleEvidence': evidence.handle,
   'case.placeHold': edit,
   'case.releaseEvidence': evidence.release,
+  // photographs: the people who move the case along, and the case's lab technician
+  'case.editPhotos': evidence.handle,
 })
 
 // While a case is open (every state but closed): view, internal view and activity, edit, move.
@@ -110,6 +113,7 @@ const OPEN: Record<keyof typeof WHO, Row> = {
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, true, true),
   labTechnician: row(true, true, false, false, { handle: true, release: false }),
+  otherLabTechnician: row(true, true, false, false),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
   ownClient: row(true, false, false, false),
@@ -124,6 +128,7 @@ const CLOSED: Record<keyof typeof WHO, Row> = {
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, false, false),
   labTechnician: row(true, true, false, false),
+  otherLabTechnician: row(true, true, false, false),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
   ownClient: row(true, false, false, false),

@@ -33,13 +33,8 @@ async function checkLinks(trx: Knex, table: string, caseId: number, ids: number[
     refuse(path, `Choose ${path === 'photoIds' ? 'photos' : 'items'} of this case.`)
 }
 
-/**
- * Photos land with their own feature: until its `photos` table exists no photo can be named, so
- * any photo id is refused rather than stored unchecked.
- */
+/** An observation cites photos of its own case. */
 async function checkPhotos(trx: Knex, caseId: number, photoIds: number[]) {
-  if (photoIds.length === 0) return
-  if (!(await trx.schema.hasTable('photos'))) refuse('photoIds', 'Choose photos of this case.')
   await checkLinks(trx, 'photos', caseId, photoIds, 'photoIds')
 }
 

@@ -174,5 +174,5 @@ describe('the evidence of a case', () => {
       expect((await api.get(`/api/cases/${caseId}/${path}`)).status(), path).toBe(404)
     }
     await api.dispose()
-  })
+  }, 180_000) // a long journey: generous on a busy machine
 })

@@ -23,6 +23,8 @@ import { createOrganisationService } from './services/organisations'
 import { createPeopleService } from './services/people'
 import { createServiceEventService } from './services/service-events'
 import { attachmentRoutes } from './routes/service-events'
+import { specificationRoutes } from './routes/specifications'
+import { analyseInThread, type TensileAnalyser } from './tensile/analyse-upload'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
 
@@ -34,6 +36,8 @@ export interface AppDeps {
   /** folder of the built client; served when present */
   clientDir?: string
   log?: (error: unknown) => void
+  /** runs tensile analyses; by default in the request's thread (the server passes a pool) */
+  analyseTensile?: TensileAnalyser
 }
 
 const defaultClientDir = resolve(projectRoot(), 'dist')
@@ -81,7 +85,9 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
   const cases = createCaseService()
   const serviceEvents = createServiceEventService({ storage: deps.storage })
-  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents))
+  const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
+  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, tests))
+  api.use('/specifications', ...signedIn, specificationRoutes(db))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use(apiNotFound)

@@ -10,13 +10,22 @@ import type { CaseService } from '../services/cases'
 import type { ServiceContext } from '../services/context'
 import type { ServiceEventService } from '../services/service-events'
 import { serviceEventRoutes } from './service-events'
+import { specimenRoutes, tensileRecordRoutes } from './mechanical-tests'
+import type { RecordDeps } from '../services/mechanical-tests/records'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
 /** Routes of one case, behind the case loader. */
-function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+function oneCaseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  tests: RecordDeps,
+): Router {
   const router = Router({ mergeParams: true })
   router.use('/service-events', serviceEventRoutes(db, events))
+  router.use('/specimens', specimenRoutes(db, tests))
+  router.use('/tensile-records', tensileRecordRoutes(db, tests))
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
     res.status(status).json({ data: await cases.view(ctx, caseFileOf(res)) })
@@ -50,7 +59,12 @@ function oneCaseRoutes(db: Knex, cases: CaseService, events: ServiceEventService
   return router
 }
 
-export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventService): Router {
+export function caseRoutes(
+  db: Knex,
+  cases: CaseService,
+  events: ServiceEventService,
+  tests: RecordDeps,
+): Router {
   const router = Router()
   router.get(
     '/',
@@ -70,6 +84,6 @@ export function caseRoutes(db: Knex, cases: CaseService, events: ServiceEventSer
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events))
+  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, tests))
   return router
 }

@@ -25,6 +25,10 @@ export type GlobalAction =
   | 'staff.list'
   | 'cases.list'
   | 'case.create'
+  /** read the specification library */
+  | 'specifications.list'
+  /** add and change specification records, and record their check against the edition */
+  | 'specifications.manage'
 
 export type CaseAction =
   /** see that the case exists (a client: as a plain status line) */
@@ -38,6 +42,10 @@ export type CaseAction =
   | 'case.viewActivity'
   /** add, change and remove service-history events and their documents */
   | 'case.editHistory'
+  /** add specimens, upload raw test records, recompute and invalidate unconfirmed records */
+  | 'case.recordTests'
+  /** confirm a test record, after which it is read-only */
+  | 'case.confirmTests'
 
 export type Action = GlobalAction | CaseAction
 
@@ -60,6 +68,10 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.changeStatus': ['admin', 'investigator'],
   'case.viewActivity': STAFF_ROLES,
   'case.editHistory': ['admin', 'investigator'],
+  'specifications.list': STAFF_ROLES,
+  'specifications.manage': ['admin'],
+  'case.recordTests': ['admin', 'investigator', 'lab'],
+  'case.confirmTests': ['admin', 'lab'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -91,6 +103,8 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   if (holds(actor, 'admin')) return true
   const parts = partsIn(actor, caseRef)
   const unled = caseRef.leadInvestigatorId === null && holds(actor, 'investigator')
+  if (action === 'case.recordTests') return parts.lab || parts.lead
+  if (action === 'case.confirmTests') return parts.lab
   if (action === 'case.edit') return parts.lead || unled
   return parts.lead || parts.coInvestigator || unled
 }
@@ -114,6 +128,8 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.changeStatus': true,
   'case.viewActivity': true,
   'case.editHistory': true,
+  'case.recordTests': true,
+  'case.confirmTests': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

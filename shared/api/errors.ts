@@ -19,6 +19,8 @@ export const ERROR_STATUS = {
   invalid_transition: 409,
   payload_too_large: 413,
   unsupported_file_type: 415,
+  /** the tensile engine refused the record or its options; the message is the engine's */
+  tensile_input: 422,
   too_many_requests: 429,
   internal_error: 500,
   /** a stored record failed its hash check */

@@ -12,6 +12,12 @@ export const ACTIVITY_KINDS = [
   'service_event.changed',
   'service_event.removed',
   'attachment.added',
+  'specimen.added',
+  'tensile_record.added',
+  'tensile_record.recomputed',
+  'tensile_record.revised',
+  'tensile_record.invalidated',
+  'tensile_record.confirmed',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -25,6 +31,12 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'service_event.changed': 'Service event changed',
   'service_event.removed': 'Service event removed',
   'attachment.added': 'Document attached',
+  'specimen.added': 'Specimen added',
+  'tensile_record.added': 'Tensile record uploaded',
+  'tensile_record.recomputed': 'Tensile record recomputed',
+  'tensile_record.revised': 'Confirmed tensile record revised',
+  'tensile_record.invalidated': 'Tensile record marked invalid',
+  'tensile_record.confirmed': 'Tensile record confirmed',
 }
 
 export const ActivityQuery = z.strictObject({

@@ -20,13 +20,18 @@ interface SpecificationRow extends Omit<
 }
 
 function toSpecification(row: SpecificationRow): Specification {
-  const { createdAt: _c, updatedAt: _u, ...rest } = row as SpecificationRow & {
+  const {
+    createdAt: _c,
+    updatedAt: _u,
+    ...rest
+  } = row as SpecificationRow & {
     createdAt?: Date
     updatedAt?: Date
   }
   return {
     ...rest,
-    bands: typeof row.bands === 'string' ? (JSON.parse(row.bands) as SpecificationBand[]) : row.bands,
+    bands:
+      typeof row.bands === 'string' ? (JSON.parse(row.bands) as SpecificationBand[]) : row.bands,
     unverified: Boolean(row.unverified),
     checkedAt: row.checkedAt ? row.checkedAt.toISOString() : null,
   }
@@ -95,7 +100,10 @@ export async function getSpecification(db: Knex, id: number): Promise<Specificat
 }
 
 /** An administrator's new record: checked by them, so not marked unverified. */
-export async function createSpecification({ actor, db }: ServiceContext, input: SpecificationCreate) {
+export async function createSpecification(
+  { actor, db }: ServiceContext,
+  input: SpecificationCreate,
+) {
   await checkUniqueDesignation(db, input.designation)
   const [id] = (await db('specifications').insert({
     ...input,

@@ -18,7 +18,10 @@ const percent = (label: string) =>
   z.nullable(
     z
       .number({ error: `${label} must be a number.` })
-      .check(z.minimum(0, `${label} cannot be negative.`), z.maximum(100, `${label} is at most 100.`)),
+      .check(
+        z.minimum(0, `${label} cannot be negative.`),
+        z.maximum(100, `${label} is at most 100.`),
+      ),
   )
 
 const size = (label: string) =>
@@ -52,7 +55,9 @@ export const SpecificationBand = z.strictObject({
     }),
   ),
   tensileStrength: z.strictObject({ min: stress('Minimum Rm'), max: stress('Maximum Rm') }),
-  elongation: z.array(z.strictObject({ minPct: z.number().check(z.positive()), basis: GaugeBasis })),
+  elongation: z.array(
+    z.strictObject({ minPct: z.number().check(z.positive()), basis: GaugeBasis }),
+  ),
   reductionOfAreaMinPct: percent('Minimum reduction of area'),
   hardness: z.nullable(
     z.strictObject({

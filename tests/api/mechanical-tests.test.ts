@@ -338,9 +338,9 @@ describe('recompute, confirm, revise, invalidate', () => {
     const shown = await uploaded(specimen.id, '46NT87.csv')
     await sessions.lab.post(casePath(`/tensile-records/${shown.id}/confirm`), { version: 1 })
     const list = await sessions.client.get(casePath('/specimens')).expect(200)
-    const records = (list.body.data.specimens as { records: { state: string; superseded: boolean }[] }[]).flatMap(
-      (specimen) => specimen.records,
-    )
+    const records = (
+      list.body.data.specimens as { records: { state: string; superseded: boolean }[] }[]
+    ).flatMap((specimen) => specimen.records)
     expect(records.length).toBeGreaterThan(0)
     expect(records.every((r) => r.state === 'confirmed' && !r.superseded)).toBe(true)
     expect(list.body.data.summary.specimens).toBe(records.length)

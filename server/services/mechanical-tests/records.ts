@@ -188,7 +188,12 @@ export async function recomputeRecord(
       .where({ id: recordId })
       .update({ superseded: true, version: row.version + 1 })
     const revised = { ...details, newRecordId: newId }
-    await recordAudit(trx, { caseId, actorId: actor.id, kind: 'tensile_record.revised', details: revised })
+    await recordAudit(trx, {
+      caseId,
+      actorId: actor.id,
+      kind: 'tensile_record.revised',
+      details: revised,
+    })
     return newId as number
   })
   return toRecordView(await findRecord(db, caseId, id))
@@ -214,13 +219,15 @@ export async function invalidateRecord(
         ])
       await findRecord(trx, caseId, input.retestRecordId)
     }
-    await trx('tensile_records').where({ id: recordId }).update({
-      state: 'invalid',
-      invalidReason: input.reason,
-      invalidNote: input.note,
-      retestRecordId: input.retestRecordId,
-      version: row.version + 1,
-    })
+    await trx('tensile_records')
+      .where({ id: recordId })
+      .update({
+        state: 'invalid',
+        invalidReason: input.reason,
+        invalidNote: input.note,
+        retestRecordId: input.retestRecordId,
+        version: row.version + 1,
+      })
     const details = {
       recordId,
       from: row.state,
@@ -228,7 +235,12 @@ export async function invalidateRecord(
       note: input.note,
       retestRecordId: input.retestRecordId,
     }
-    await recordAudit(trx, { caseId, actorId: actor.id, kind: 'tensile_record.invalidated', details })
+    await recordAudit(trx, {
+      caseId,
+      actorId: actor.id,
+      kind: 'tensile_record.invalidated',
+      details,
+    })
   })
   return toRecordView(await findRecord(db, caseId, recordId))
 }
@@ -245,12 +257,14 @@ export async function confirmRecord(
     checkChangeable(row)
     checkVersion(row, version)
     if (row.state === 'confirmed') throw new Conflict('This record is already confirmed.')
-    await trx('tensile_records').where({ id: recordId }).update({
-      state: 'confirmed',
-      confirmedBy: actor.id,
-      confirmedAt: trx.fn.now(),
-      version: row.version + 1,
-    })
+    await trx('tensile_records')
+      .where({ id: recordId })
+      .update({
+        state: 'confirmed',
+        confirmedBy: actor.id,
+        confirmedAt: trx.fn.now(),
+        version: row.version + 1,
+      })
     const details = { recordId, revision: row.revision, sha256: row.sha256 }
     await recordAudit(trx, { caseId, actorId: actor.id, kind: 'tensile_record.confirmed', details })
   })

@@ -13,14 +13,14 @@ import { toRecordView, toSpecimen, type RecordRow, type SpecimenRow } from './ro
 
 export async function findSpecimen(db: Knex, caseId: number, specimenId: number) {
   const row = (await db('specimens').where({ id: specimenId, caseId }).first()) as
-    | SpecimenRow
-    | undefined
+    SpecimenRow | undefined
   if (!row) throw new NotFound('No such specimen in this case.')
   return row
 }
 
 /** Records that count: not invalid and not replaced by a newer revision. */
-export const counts = (record: TensileRecordView) => record.state !== 'invalid' && !record.superseded
+export const counts = (record: TensileRecordView) =>
+  record.state !== 'invalid' && !record.superseded
 
 export interface SpecimenList {
   specimens: Specimen[]
@@ -45,7 +45,12 @@ export async function listSpecimens(
   if (!staff) recordQuery.where({ state: 'confirmed', superseded: false })
   const records = ((await recordQuery) as RecordRow[]).map(toRecordView)
   const specimens = specimenRows
-    .map((row) => toSpecimen(row, records.filter((r) => r.specimenId === row.id)))
+    .map((row) =>
+      toSpecimen(
+        row,
+        records.filter((r) => r.specimenId === row.id),
+      ),
+    )
     .filter((specimen) => staff || specimen.records.length > 0)
   const valid = records.filter(counts).map((record) => record.result)
   const results = valid.flatMap((report) => (Array.isArray(report) ? [] : [report]))

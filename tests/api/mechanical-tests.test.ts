@@ -266,7 +266,10 @@ describe('recompute, confirm, revise, invalidate', () => {
       .where({ caseId, action: 'tensile_record.recomputed' })
       .orderBy('id', 'desc')
       .first()
-    const details = parsed(entry.details as string | object) as Record<string, { options: object }>
+    const details = parsed(entry.details as string | object) as {
+      from: { options: object }
+      to: { options: object }
+    }
     expect(details.from.options).toEqual({ fitRange: '100:400MPa' })
     expect(details.to.options).toEqual({ fitRange: '200:600MPa', offset: '0.2,1' })
     expect(entry.actorId).toBe(people.lab.id)

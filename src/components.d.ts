@@ -45,6 +45,7 @@ declare module 'vue' {
     PersonDialog: typeof import('./components/people/PersonDialog.vue')['default']
     PlainSelect: typeof import('./components/common/PlainSelect.vue')['default']
     ProgressBar: typeof import('primevue/progressbar')['default']
+    RecordUploadDialog: typeof import('./components/tensile/RecordUploadDialog.vue')['default']
     RouterLink: typeof import('vue-router')['RouterLink']
     RouterView: typeof import('vue-router')['RouterView']
     SafetyCriticalMark: typeof import('./components/case/SafetyCriticalMark.vue')['default']
@@ -54,9 +55,15 @@ declare module 'vue' {
     ServiceLifeSummary: typeof import('./components/history/ServiceLifeSummary.vue')['default']
     ServiceTimeline: typeof import('./components/history/ServiceTimeline.vue')['default']
     SortHeader: typeof import('./components/cases/SortHeader.vue')['default']
+    SpecimenForm: typeof import('./components/tensile/SpecimenForm.vue')['default']
+    SpecimenSummary: typeof import('./components/tensile/SpecimenSummary.vue')['default']
+    StressStrainChart: typeof import('./components/tensile/StressStrainChart.vue')['default']
     Tag: typeof import('primevue/tag')['default']
+    TensileRecordCard: typeof import('./components/tensile/TensileRecordCard.vue')['default']
+    TensileResultTable: typeof import('./components/tensile/TensileResultTable.vue')['default']
     Textarea: typeof import('primevue/textarea')['default']
     Toast: typeof import('primevue/toast')['default']
+    ToggleButton: typeof import('primevue/togglebutton')['default']
     ToggleSwitch: typeof import('primevue/toggleswitch')['default']
   }
 }

@@ -42,10 +42,10 @@ export const VERDICT_LOOK: Record<
   Verdict | ConformityResult['overall'],
   { icon: string; words: string }
 > = {
-  pass: { icon: 'pi pi-check-circle', words: 'Pass' },
-  fail: { icon: 'pi pi-times-circle', words: 'Fail' },
-  inconclusive: { icon: 'pi pi-question-circle', words: 'Inconclusive' },
-  incomplete: { icon: 'pi pi-minus-circle', words: 'Incomplete' },
-  'not comparable': { icon: 'pi pi-ban', words: 'Not comparable' },
-  'not measured': { icon: 'pi pi-minus-circle', words: 'Not measured' },
+  pass: { icon: '✔', words: 'Pass' },
+  fail: { icon: '✖', words: 'Fail' },
+  inconclusive: { icon: '?', words: 'Inconclusive' },
+  incomplete: { icon: '…', words: 'Incomplete' },
+  'not comparable': { icon: '≠', words: 'Not comparable' },
+  'not measured': { icon: '–', words: 'Not measured' },
 }

@@ -2,9 +2,11 @@
 // serves. It installs nothing, migrates nothing and seeds nothing: `npm start` (scripts/start.ts)
 // prepares the database first.
 import type { Server } from 'node:http'
+import { availableParallelism } from 'node:os'
 import { createApp } from './app'
 import { ConfigError, loadConfig } from './config'
 import { createDb } from './db/knex'
+import { createAnalysisPool, type AnalysisPool } from './tensile/analysis-pool'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -24,7 +26,7 @@ async function main(): Promise<void> {
   const config = loadConfig()
   if (!config.databaseUrl) throw new ConfigError(NO_DATABASE)
   const db = createDb(config.databaseUrl)
-  const running: { server?: Server } = {}
+  const running: { server?: Server; pool?: AnalysisPool } = {}
 
   let stopping = false
   const shutdown = async (signal: string) => {
@@ -33,13 +35,17 @@ async function main(): Promise<void> {
     stopping = true
     console.log(`${signal} received, shutting down…`)
     await new Promise((done) => (running.server ? running.server.close(done) : done(undefined)))
+    await running.pool?.close()
     await db.destroy()
     process.exit(0)
   }
   process.on('SIGINT', () => void shutdown('SIGINT'))
   process.on('SIGTERM', () => void shutdown('SIGTERM'))
 
-  running.server = await listen(createApp({ db, config }), config.host, config.port)
+  const pool = createAnalysisPool(Math.max(1, availableParallelism() - 1))
+  running.pool = pool
+  const app = createApp({ db, config, analyseTensile: pool.analyse })
+  running.server = await listen(app, config.host, config.port)
   console.log(
     `Fractolog is running at ${config.publicUrl}/ (listening on ${config.host}:${config.port})`,
   )

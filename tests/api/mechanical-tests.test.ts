@@ -6,6 +6,7 @@ import { join, resolve } from 'node:path'
 import { promisify } from 'node:util'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
+import { createAnalysisPool } from '../../server/tensile/analysis-pool'
 import { seedStarterSpecifications } from '../../server/services/specifications'
 import { createLocalStorage } from '../../server/storage/local-storage'
 import { analyseSpecimens, STARTER_SPECIFICATIONS } from '../../shared/tensile'
@@ -18,11 +19,14 @@ import { createTestDb, resetDatabase } from '../helpers/test-db'
 const run = promisify(execFile)
 const db = createTestDb()
 const uploads = mkdtempSync(join(tmpdir(), 'fractolog-tensile-'))
+// The server's own path: analyses run in a worker thread of the pool.
+const pool = createAnalysisPool(1)
 const app = createApp({
   db,
   config: testConfig(),
   clientDir: '/nonexistent',
   storage: createLocalStorage(uploads),
+  analyseTensile: pool.analyse,
 })
 
 // Open 42CrMoS4 records (CC BY 4.0, see tests/fixtures/tensile-42CrMoS4/README.md).
@@ -53,6 +57,7 @@ beforeAll(async () => {
   caseId = (await makeCase(db, own, people.admin.id, assigned)).id
 })
 afterAll(async () => {
+  await pool.close()
   await db.destroy()
   rmSync(uploads, { recursive: true, force: true })
 })

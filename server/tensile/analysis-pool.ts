@@ -19,7 +19,9 @@ interface Slot {
 const WORKER_FILE = new URL('./analysis-worker.ts', import.meta.url).href
 // require.resolve finds the CommonJS build of tsx's ESM API; the worker imports its ESM twin.
 const TSX_API = pathToFileURL(
-  createRequire(import.meta.url).resolve('tsx/esm/api').replace(/\.cjs$/, '.mjs'),
+  createRequire(import.meta.url)
+    .resolve('tsx/esm/api')
+    .replace(/\.cjs$/, '.mjs'),
 ).href
 
 /**

@@ -11,8 +11,7 @@ export interface AnalysisJob {
 }
 
 export type AnalysisAnswer =
-  | { id: number; result: unknown }
-  | { id: number; error: { input: boolean; message: string } }
+  { id: number; result: unknown } | { id: number; error: { input: boolean; message: string } }
 
 parentPort?.on('message', (job: AnalysisJob) => {
   try {

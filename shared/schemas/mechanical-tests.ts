@@ -110,4 +110,5 @@ export interface TensileRecordView {
   createdAt: string
 }
 
-export const MAX_TENSILE_RECORD_BYTES = 50 * 1024 * 1024
+/** A million-point export is about 70 MB; the engine itself reads up to 256 M characters. */
+export const MAX_TENSILE_RECORD_BYTES = 128 * 1024 * 1024

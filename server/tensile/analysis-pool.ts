@@ -16,20 +16,21 @@ interface Slot {
   busy: Pending | null
 }
 
-const WORKER_FILE = new URL('./analysis-worker.ts', import.meta.url).href
-// require.resolve finds the CommonJS build of tsx's ESM API; the worker imports its ESM twin.
-const TSX_API = pathToFileURL(
-  createRequire(import.meta.url)
-    .resolve('tsx/esm/api')
-    .replace(/\.cjs$/, '.mjs'),
-).href
+// Compiled, the worker sits beside the server bundle as analysis-worker.js; from source (tsx,
+// vitest) it is the TypeScript file, run through tsx's loader registered inside the worker
+// (Node 20 does not pass an --import loader on to worker threads).
+const COMPILED = !import.meta.url.endsWith('.ts')
 
-/**
- * Workers run the TypeScript worker file through tsx's loader, registered inside the worker
- * (Node 20 does not pass an --import loader on to worker threads).
- */
 function startWorker(): Worker {
-  const boot = `import(${JSON.stringify(TSX_API)}).then(({ register }) => { register(); return import(${JSON.stringify(WORKER_FILE)}) })`
+  if (COMPILED) return new Worker(new URL('./analysis-worker.js', import.meta.url))
+  const workerFile = new URL('./analysis-worker.ts', import.meta.url).href
+  // require.resolve finds the CommonJS build of tsx's ESM API; the worker imports its ESM twin.
+  const tsxApi = pathToFileURL(
+    createRequire(import.meta.url)
+      .resolve('tsx/esm/api')
+      .replace(/\.cjs$/, '.mjs'),
+  ).href
+  const boot = `import(${JSON.stringify(tsxApi)}).then(({ register }) => { register(); return import(${JSON.stringify(workerFile)}) })`
   return new Worker(boot, { eval: true })
 }
 

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex'
 
-// Photos and samples arrived side by side; now both exist, their links become foreign keys.
+// Photos, samples and specimens arrived side by side; now all exist, their links become keys.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('photos', (table) => {
     table.foreign('sample_id').references('id').inTable('samples').onDelete('RESTRICT')
@@ -8,9 +8,15 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('observation_photos', (table) => {
     table.foreign('photo_id').references('id').inTable('photos').onDelete('RESTRICT')
   })
+  await knex.schema.alterTable('specimens', (table) => {
+    table.foreign('sample_id').references('id').inTable('samples').onDelete('RESTRICT')
+  })
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.schema.alterTable('specimens', (table) => {
+    table.dropForeign(['sample_id'])
+  })
   await knex.schema.alterTable('observation_photos', (table) => {
     table.dropForeign(['photo_id'])
   })

@@ -20,7 +20,11 @@ const common: BuildOptions = {
 /** The server keeps its packages in node_modules (some have native parts); maps for stack traces. */
 const server: BuildOptions = {
   ...common,
-  entryPoints: { server: 'server/index.ts' },
+  // The tensile analysis worker is a file of its own beside the server: worker threads load it.
+  entryPoints: {
+    server: 'server/index.ts',
+    'analysis-worker': 'server/tensile/analysis-worker.ts',
+  },
   packages: 'external',
   sourcemap: true,
 }

@@ -7,6 +7,8 @@ import { ConfigError, loadConfig, type Config } from '../server/config'
 import { resolveDatabase } from '../server/db/database-url'
 import { createDb } from '../server/db/knex'
 import { migrateLatest } from '../server/db/migrations'
+import { seedStarterSpecifications } from '../server/services/specifications'
+import { createLocalStorage } from '../server/storage/local-storage'
 import { demoAccountsNote, seedDemoIfEmpty } from '../seeds/demo'
 import { runStep } from './run-step'
 
@@ -38,8 +40,14 @@ async function prepareDatabase(config: Config, url: string): Promise<void> {
   try {
     const applied = await migrateLatest(db)
     if (applied.length > 0) console.log(`Applied ${applied.length} migration(s).`)
+    const starters = await seedStarterSpecifications(db)
+    if (starters > 0) console.log(`Specification library started: ${starters} unverified records.`)
     if (!config.demoData) return
-    const options = { password: config.demoPassword, passwordCost: config.passwordCost }
+    const options = {
+      password: config.demoPassword,
+      passwordCost: config.passwordCost,
+      storage: createLocalStorage(config.uploadsDir),
+    }
     if (await seedDemoIfEmpty(db, options)) console.log('Demo scenario seeded.')
     console.log(demoBanner(config))
   } finally {

@@ -7,6 +7,8 @@ import { createCaseService } from '../server/services/cases'
 import { createServiceEventService } from '../server/services/service-events'
 import { createLocalStorage } from '../server/storage/local-storage'
 import { ServiceEventCreate } from '../shared/schemas/service-events'
+import type { FileStorage } from '../server/storage/file-storage'
+import { seedDemoTensile } from './demo-tensile'
 import { CASES, DEMO_LAB_NAME, ORGANISATIONS, PEOPLE, type DemoCase } from './demo-scenario'
 
 export { DEMO_LAB_NAME } from './demo-scenario'
@@ -16,6 +18,8 @@ export interface DemoOptions {
   passwordCost?: number
   /** the day the scenario is seeded; its dates are relative to it */
   today?: Date
+  /** where the demo's raw tensile records go; without it the demo has no test records */
+  storage?: FileStorage
 }
 
 const WAY_TO: Record<DemoCase['status'], CaseState[]> = {
@@ -60,6 +64,7 @@ function caseInput(
     reviewer,
     status: _s,
     history: _h,
+    tensileTested: _t,
     ...rest
   } = demo
   const { failedDaysAgo, receivedDaysAgo, dueInDays, ...fields } = rest
@@ -93,6 +98,7 @@ async function seedCases(
   today: Date,
   organisationIds: Map<string, number>,
   actors: Map<string, Actor>,
+  storage: FileStorage | undefined,
 ) {
   const cases = createCaseService({ clock: () => today })
   const admin = actors.get('admin')!
@@ -106,6 +112,8 @@ async function seedCases(
       if (!findTransition(status, next)) throw new Error(`demo: no way from ${status} to ${next}`)
       status = (await cases.changeStatus({ actor: lead, db: trx }, created.id, next)).status
     }
+    if (storage && demo.tensileTested && demo.lab)
+      await seedDemoTensile(trx, created.id, actors.get(demo.lab)!, storage, daysFrom(today, -20))
   }
 }
 
@@ -126,7 +134,7 @@ export async function seedDemoIfEmpty(db: Knex, options: DemoOptions): Promise<b
       organisationIds.set(key, id as number)
     }
     const actors = await seedPeople(trx, options, organisationIds)
-    await seedCases(trx, today, organisationIds, actors)
+    await seedCases(trx, today, organisationIds, actors, options.storage)
   })
   return true
 }

@@ -27,6 +27,8 @@ import { attachmentRoutes } from './routes/service-events'
 import { casePhotoRoutes, photoRoutes } from './routes/photos'
 import { createPhotoService } from './services/photos/photos'
 import { incomingDirOf } from './middleware/upload'
+import { specificationRoutes } from './routes/specifications'
+import { analyseInThread, type TensileAnalyser } from './tensile/analyse-upload'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
 
@@ -40,6 +42,8 @@ export interface AppDeps {
   /** folder of the built client; served when present */
   clientDir?: string
   log?: (error: unknown) => void
+  /** runs tensile analyses; by default in the request's thread (the server passes a pool) */
+  analyseTensile?: TensileAnalyser
 }
 
 const defaultClientDir = resolve(projectRoot(), 'dist')
@@ -91,7 +95,9 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const photos = createPhotoService({ storage: deps.storage })
   const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
   const children = { photos: casePhotoRoutes(db, photos, incomingDir) }
-  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, children))
+  const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
+  api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, tests, children))
+  api.use('/specifications', ...signedIn, specificationRoutes(db))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/photos', ...signedIn, photoRoutes(db, cases, photos))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))

@@ -2,10 +2,12 @@
 // serves. It installs nothing, migrates nothing and seeds nothing: `npm start` (scripts/start.ts)
 // prepares the database first.
 import type { Server } from 'node:http'
+import { availableParallelism } from 'node:os'
 import { createApp } from './app'
 import { ConfigError, loadConfig } from './config'
 import { createDb } from './db/knex'
 import { sweepUploads } from './storage/sweep-uploads'
+import { createAnalysisPool, type AnalysisPool } from './tensile/analysis-pool'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -25,7 +27,7 @@ async function main(): Promise<void> {
   const config = loadConfig()
   if (!config.databaseUrl) throw new ConfigError(NO_DATABASE)
   const db = createDb(config.databaseUrl)
-  const running: { server?: Server } = {}
+  const running: { server?: Server; pool?: AnalysisPool } = {}
 
   let stopping = false
   const shutdown = async (signal: string) => {
@@ -34,6 +36,7 @@ async function main(): Promise<void> {
     stopping = true
     console.log(`${signal} received, shutting down…`)
     await new Promise((done) => (running.server ? running.server.close(done) : done(undefined)))
+    await running.pool?.close()
     await db.destroy()
     process.exit(0)
   }
@@ -42,7 +45,10 @@ async function main(): Promise<void> {
 
   const swept = await sweepUploads(db, config.uploadsDir)
   if (swept > 0) console.log(`Removed ${swept} file(s) left behind by interrupted uploads.`)
-  running.server = await listen(createApp({ db, config }), config.host, config.port)
+  const pool = createAnalysisPool(Math.max(1, availableParallelism() - 1))
+  running.pool = pool
+  const app = createApp({ db, config, analyseTensile: pool.analyse })
+  running.server = await listen(app, config.host, config.port)
   console.log(
     `Fractolog is running at ${config.publicUrl}/ (listening on ${config.host}:${config.port})`,
   )

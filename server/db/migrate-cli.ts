@@ -2,6 +2,7 @@
 import { resolveDatabase } from './database-url'
 import { createDb } from './knex'
 import { migrateLatest, rollbackAll } from './migrations'
+import { seedStarterSpecifications } from '../services/specifications'
 
 async function main(command = 'latest'): Promise<void> {
   if (command !== 'latest' && command !== 'rollback')
@@ -13,6 +14,8 @@ async function main(command = 'latest'): Promise<void> {
     console.log(
       `${command}: ${names.length} migration(s)${names.length ? `: ${names.join(', ')}` : ''}`,
     )
+    // An empty specification library starts with the engine's starter records, marked unverified.
+    if (command === 'latest') await seedStarterSpecifications(db)
   } finally {
     await db.destroy()
     await database.local?.stop()

@@ -12,6 +12,8 @@ import type { ServiceEventService } from '../services/service-events'
 import type { EvidenceServices } from '../services/evidence'
 import { evidenceRoutes } from './evidence'
 import { serviceEventRoutes } from './service-events'
+import { specimenRoutes, tensileRecordRoutes } from './mechanical-tests'
+import type { RecordDeps } from '../services/mechanical-tests/records'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
@@ -24,11 +26,14 @@ function oneCaseRoutes(
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
+  tests: RecordDeps,
   children: CaseChildRoutes,
 ): Router {
   const router = Router({ mergeParams: true })
   router.use('/service-events', serviceEventRoutes(db, events))
   router.use(evidenceRoutes(db, evidence))
+  router.use('/specimens', specimenRoutes(db, tests))
+  router.use('/tensile-records', tensileRecordRoutes(db, tests))
   for (const [path, child] of Object.entries(children)) router.use(`/${path}`, child)
   const answer = async (req: Request, res: Response, status = 200) => {
     const ctx = contextOf(req, db)
@@ -68,6 +73,7 @@ export function caseRoutes(
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
+  tests: RecordDeps,
   children: CaseChildRoutes = {},
 ): Router {
   const router = Router()
@@ -89,6 +95,10 @@ export function caseRoutes(
       res.status(201).json({ data: await cases.view(ctx, created) })
     },
   )
-  router.use('/:id', caseLoader(db, cases), oneCaseRoutes(db, cases, events, evidence, children))
+  router.use(
+    '/:id',
+    caseLoader(db, cases),
+    oneCaseRoutes(db, cases, events, evidence, tests, children),
+  )
   return router
 }

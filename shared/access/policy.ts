@@ -25,6 +25,10 @@ export type GlobalAction =
   | 'staff.list'
   | 'cases.list'
   | 'case.create'
+  /** read the specification library */
+  | 'specifications.list'
+  /** add and change specification records, and record their check against the edition */
+  | 'specifications.manage'
 
 export type CaseAction =
   /** see that the case exists (a client: as a plain status line) */
@@ -46,6 +50,10 @@ export type CaseAction =
   | 'case.releaseEvidence'
   /** upload photographs, describe, calibrate and mark them */
   | 'case.editPhotos'
+  /** add specimens, upload raw test records, recompute and invalidate unconfirmed records */
+  | 'case.recordTests'
+  /** confirm a test record, after which it is read-only */
+  | 'case.confirmTests'
 
 export type Action = GlobalAction | CaseAction
 
@@ -72,6 +80,10 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.placeHold': ['admin', 'investigator'],
   'case.releaseEvidence': ['admin'],
   'case.editPhotos': ['admin', 'investigator', 'lab'],
+  'specifications.list': STAFF_ROLES,
+  'specifications.manage': ['admin'],
+  'case.recordTests': ['admin', 'investigator', 'lab'],
+  'case.confirmTests': ['admin', 'lab'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -103,6 +115,8 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   if (holds(actor, 'admin')) return true
   const parts = partsIn(actor, caseRef)
   const unled = caseRef.leadInvestigatorId === null && holds(actor, 'investigator')
+  if (action === 'case.recordTests') return parts.lab || parts.lead
+  if (action === 'case.confirmTests') return parts.lab
   if (action === 'case.edit' || action === 'case.placeHold') return parts.lead || unled
   // the case's lab technician handles its samples as much as the investigators do
   if (action === 'case.handleEvidence')
@@ -135,6 +149,8 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.placeHold': true,
   'case.releaseEvidence': true,
   'case.editPhotos': true,
+  'case.recordTests': true,
+  'case.confirmTests': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

@@ -27,6 +27,8 @@ export const ERROR_STATUS = {
   image_too_large: 422,
   /** an image that is truncated or corrupt */
   image_unreadable: 422,
+  /** the tensile engine refused the record or its options; the message is the engine's */
+  tensile_input: 422,
   too_many_requests: 429,
   internal_error: 500,
   /** a stored record failed its hash check */

@@ -24,6 +24,12 @@ export const ACTIVITY_KINDS = [
   'observation.withdrawn',
   'photo.added',
   'photo.changed',
+  'specimen.added',
+  'tensile_record.added',
+  'tensile_record.recomputed',
+  'tensile_record.revised',
+  'tensile_record.invalidated',
+  'tensile_record.confirmed',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -49,6 +55,12 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'observation.withdrawn': 'Observation withdrawn',
   'photo.added': 'Photo added',
   'photo.changed': 'Photo changed',
+  'specimen.added': 'Specimen added',
+  'tensile_record.added': 'Tensile record uploaded',
+  'tensile_record.recomputed': 'Tensile record recomputed',
+  'tensile_record.revised': 'Confirmed tensile record revised',
+  'tensile_record.invalidated': 'Tensile record marked invalid',
+  'tensile_record.confirmed': 'Tensile record confirmed',
 }
 
 export const ActivityQuery = z.strictObject({

@@ -85,3 +85,4 @@ export {
 } from './statistics'
 export { discontinuousYield, type DiscontinuousYield } from './discontinuous-yield'
 export { strainHardening, defaultHardeningRange, type HardeningFit } from './strain-hardening'
+export { previewRecord, thinCurve, type CurvePoint, type RecordPreview } from './preview'

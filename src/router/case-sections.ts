@@ -54,7 +54,7 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     path: 'mechanical-tests',
     label: 'Mechanical tests',
     roles: STAFF,
-    component: notYet,
+    component: () => import('@/views/case/CaseMechanicalTestsView.vue'),
   },
   { name: 'case-findings', path: 'findings', label: 'Findings', roles: STAFF, component: notYet },
   { name: 'case-review', path: 'review', label: 'Review', roles: STAFF, component: notYet },

@@ -227,6 +227,66 @@ const ROUTES: RouteCase[] = [
   { method: 'get', template: '/api/photos/999999/display', expect: { others: 404 } },
   { method: 'get', template: '/api/photos/999999/thumbnail', expect: { others: 404 } },
   { method: 'get', template: '/api/photos/999999/figure', expect: { others: 404 } },
+  { method: 'get', template: '/api/specifications', expect: { client: 403, others: 200 } },
+  {
+    method: 'post',
+    template: '/api/specifications',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'patch',
+    template: '/api/specifications/999999',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  { method: 'get', template: '/api/cases/:ownCase/specimens', expect: { others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/specimens',
+    expect: { client: 404, others: 200 },
+  },
+  // the cases have no lead and no lab technician: only administrators record and confirm tests
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/specimens',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:otherCase/specimens',
+    body: {},
+    expect: { admin: 400, client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/specimens/999999/tensile-records',
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/tensile-records/999999/recompute',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/tensile-records/999999/invalidate',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/tensile-records/999999/confirm',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  {
+    method: 'get',
+    template: '/api/cases/:ownCase/tensile-records/999999/file',
+    expect: { client: 403, others: 404 },
+  },
 ]
 
 const pathOf = (route: RouteCase) =>

@@ -36,6 +36,20 @@ const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
   'staff.list': { admin: true, investigator: true, lab: true, reviewer: true, client: false },
   'cases.list': { admin: true, investigator: true, lab: true, reviewer: true, client: true },
   'case.create': { admin: true, investigator: true, lab: false, reviewer: false, client: false },
+  'specifications.list': {
+    admin: true,
+    investigator: true,
+    lab: true,
+    reviewer: true,
+    client: false,
+  },
+  'specifications.manage': {
+    admin: true,
+    investigator: false,
+    lab: false,
+    reviewer: false,
+    client: false,
+  },
 }
 
 describe('access policy: role × action', () => {
@@ -88,6 +102,7 @@ const row = (
   edit: boolean,
   move: boolean,
   evidence: { handle: boolean; release: boolean } = { handle: move, release: false },
+  tests: { record: boolean; confirm: boolean } = { record: false, confirm: false },
 ): Row => ({
   'case.view': view,
   'case.viewInternal': internal,
@@ -103,16 +118,30 @@ const row = (
   'case.releaseEvidence': evidence.release,
   // photographs: the people who move the case along, and the case's lab technician
   'case.editPhotos': evidence.handle,
+  'case.recordTests': tests.record,
+  'case.confirmTests': tests.confirm,
 })
+
+// Test records: the case's lab technician, its lead and administrators record them; only the
+// case's lab technician and administrators confirm them.
+const RECORDS_AND_CONFIRMS = { record: true, confirm: true }
+const RECORDS = { record: true, confirm: false }
 
 // While a case is open (every state but closed): view, internal view and activity, edit, move.
 const OPEN: Record<keyof typeof WHO, Row> = {
-  admin: row(true, true, true, true, { handle: true, release: true }),
-  lead: row(true, true, true, true),
+  admin: row(true, true, true, true, { handle: true, release: true }, RECORDS_AND_CONFIRMS),
+  lead: row(true, true, true, true, undefined, RECORDS),
   coInvestigator: row(true, true, false, true),
   otherInvestigator: row(true, true, false, false),
   investigatorOfUnledCase: row(true, true, true, true),
-  labTechnician: row(true, true, false, false, { handle: true, release: false }),
+  labTechnician: row(
+    true,
+    true,
+    false,
+    false,
+    { handle: true, release: false },
+    RECORDS_AND_CONFIRMS,
+  ),
   otherLabTechnician: row(true, true, false, false),
   reviewer: row(true, true, false, false),
   otherReviewer: row(true, true, false, false),
@@ -155,6 +184,12 @@ describe('access policy: person × part × case action × state', () => {
   it('combines roles: a reviewer who is also an investigator may open cases', () => {
     const both: Actor = { id: 2, roles: ['reviewer', 'investigator'], organisationId: null }
     expect(can(both, 'case.create')).toBe(true)
+  })
+
+  it('lets a lab technician not assigned to the case neither record nor confirm its tests', () => {
+    const otherLab: Actor = { id: 17, roles: ['lab'], organisationId: null }
+    expect(can(otherLab, 'case.recordTests', caseIn('examination'))).toBe(false)
+    expect(can(otherLab, 'case.confirmTests', caseIn('examination'))).toBe(false)
   })
 
   it('never lets a client without an organisation reach a case', () => {

@@ -169,8 +169,9 @@ export async function caseOfPhoto(db: Knex, photoId: number): Promise<number | u
 /** Which of these storage keys a record names (attachments and photos), for the start-up sweep. */
 export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<string>> {
   if (keys.length === 0) return new Set()
-  const [attachments, photos] = (await Promise.all([
+  const [attachments, records, photos] = (await Promise.all([
     db('attachments').whereIn('storageKey', keys).select('storageKey'),
+    db('tensileRecords').whereIn('storageKey', keys).select('storageKey'),
     db('photos')
       .whereIn('originalKey', keys)
       .orWhereIn('displayKey', keys)
@@ -178,10 +179,12 @@ export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<st
       .select('originalKey', 'displayKey', 'thumbnailKey'),
   ])) as [
     { storageKey: string }[],
+    { storageKey: string }[],
     { originalKey: string; displayKey: string; thumbnailKey: string }[],
   ]
   return new Set([
     ...attachments.map((row) => row.storageKey),
+    ...records.map((row) => row.storageKey),
     ...photos.flatMap((row) => [row.originalKey, row.displayKey, row.thumbnailKey]),
   ])
 }

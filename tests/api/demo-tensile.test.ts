@@ -1,0 +1,49 @@
+import { mkdtempSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { createLocalStorage } from '../../server/storage/local-storage'
+import { analyseSpecimens } from '../../shared/tensile'
+import { seedDemoIfEmpty } from '../../seeds/demo'
+import { createTestDb, resetDatabase } from '../helpers/test-db'
+
+const db = createTestDb()
+const uploads = mkdtempSync(join(tmpdir(), 'fractolog-demo-'))
+const storage = createLocalStorage(uploads)
+
+beforeAll(async () => {
+  await resetDatabase(db)
+  await seedDemoIfEmpty(db, { password: 'demo password 1', passwordCost: 4, storage })
+})
+afterAll(async () => {
+  await db.destroy()
+  rmSync(uploads, { recursive: true, force: true })
+})
+
+describe('the demo’s tensile tests', () => {
+  it('has confirmed records whose stored results are the engine’s for the stored files', async () => {
+    const rows = (await db('tensile_records').orderBy('id')) as {
+      storageKey: string
+      sha256: string
+      fileName: string
+      options: string | Record<string, string>
+      result: string
+      state: string
+    }[]
+    expect(rows.map((row) => row.state)).toEqual(['confirmed', 'confirmed', 'confirmed'])
+    for (const row of rows) {
+      const bytes = await storage.read({ key: row.storageKey, sha256: row.sha256 })
+      const options = typeof row.options === 'string' ? JSON.parse(row.options) : row.options
+      const expected = analyseSpecimens(
+        [{ name: row.fileName, source: bytes.toString('utf8') }],
+        options,
+      )
+      expect(JSON.parse(row.result)).toEqual(expected)
+      const result = expected as {
+        conformity: { overall: string } | null
+        tensileStrengthMPa: number
+      }
+      expect(result.conformity?.overall).toMatch(/^(pass|fail|inconclusive|incomplete)$/)
+    }
+  })
+})

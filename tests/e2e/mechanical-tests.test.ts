@@ -1,0 +1,79 @@
+import { resolve } from 'node:path'
+import { describe, expect, inject, it } from 'vitest'
+import { screenshot, signIn, unexpectedErrors, useBrowser } from '../helpers/browser'
+
+const browser = useBrowser()
+// Open 42CrMoS4 record (CC BY 4.0, see tests/fixtures/tensile-42CrMoS4/README.md).
+const RECORD = resolve(import.meta.dirname, '../fixtures/tensile-42CrMoS4/46NT73.csv')
+const TITLE = 'Fractured hook block pin, gantry crane 3'
+
+async function openSection(page: ReturnType<typeof browser>['page'], base: string) {
+  await page.goto(`${base}/cases?q=${encodeURIComponent('hook block pin')}`)
+  await page.getByTestId('case-table').getByText(TITLE).click()
+  await page.waitForURL(/\/cases\/\d+$/)
+  await page.getByTestId('section-case-mechanical-tests').click()
+  await page.getByTestId('mechanical-tests').waitFor()
+}
+
+describe('mechanical tests', () => {
+  it('takes the lab technician from a raw export to a confirmed, checked result', async () => {
+    const page = browser().page
+    const base = inject('baseUrl')
+    await signIn(page, base, 'lab@demo.test', inject('demoPassword'))
+    await openSection(page, base)
+
+    await page.getByTestId('specimen-label').fill('E2E-T1')
+    await page.getByTestId('add-specimen').click()
+    await page.getByTestId('specimen-E2E-T1').waitFor()
+    await page.getByTestId('specimen-E2E-T1').getByTestId('upload-record').click()
+    await page.getByTestId('record-file').setInputFiles(RECORD)
+    await expect.poll(() => page.getByTestId('record-dialect').textContent()).toContain('tab')
+
+    // A wrong mapping is refused in the engine's words; the right one draws the curve.
+    await page.getByTestId('map-forceColumn').click()
+    await page.getByRole('option', { name: 'Time', exact: true }).click()
+    await expect
+      .poll(() => page.getByTestId('record-problem').textContent())
+      .toContain('not recognised as a force unit')
+    await page.getByTestId('map-forceColumn').click()
+    await page.getByRole('option', { name: 'Force', exact: true }).click()
+    await page.getByTestId('record-spec').click()
+    await page.getByRole('option', { name: '42CrMo4+QT', exact: true }).click()
+    await page.getByTestId('fit-range').fill('100:400MPa')
+    await expect.poll(() => page.getByTestId('used-columns').textContent()).toContain('“Force”')
+    await page.getByTestId('stress-strain-chart').waitFor()
+    await expect.poll(() => page.getByTestId('tensile-properties').textContent()).toContain('Rm')
+    await screenshot(page, 'mechanical-tests-preview')
+    await page.getByTestId('save-record').click()
+
+    const specimen = page.getByTestId('specimen-E2E-T1')
+    await specimen.getByTestId('tensile-properties').waitFor()
+    await specimen.getByTestId('recompute-fit-range').fill('150:450MPa')
+    await specimen.getByTestId('recompute').click()
+    await expect
+      .poll(() => specimen.getByTestId('tensile-properties').first().textContent())
+      .toContain('Elastic slope')
+    await specimen.getByTestId('show-curve').click()
+    await specimen.getByTestId('stress-strain-chart').waitFor()
+    await specimen.getByTestId('confirm-record').click()
+    await expect.poll(() => specimen.textContent()).toContain('Confirmed')
+    await screenshot(page, 'mechanical-tests-confirmed')
+    expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
+  })
+
+  it('shows the investigator the verdict with its rule and the indicative-verdict caution', async () => {
+    const page = browser().page
+    const base = inject('baseUrl')
+    await page.context().clearCookies()
+    await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
+    await openSection(page, base)
+    const conformity = page.getByTestId('specimen-E2E-T1').getByTestId('tensile-conformity')
+    await expect.poll(() => conformity.textContent()).toContain('against 42CrMo4+QT')
+    expect(await conformity.textContent()).toContain('Decision rule')
+    expect(await conformity.getByTestId('verdict-caution').textContent()).toContain(
+      'Indicative only',
+    )
+    expect(await page.getByTestId('confirm-record').count()).toBe(0)
+    await screenshot(page, 'mechanical-tests-investigator')
+  })
+})

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex'
 import { isStaff } from '../../../shared/access/policy'
-import { custodyFlags } from '../../../shared/evidence/custody-flags'
+import { custodyFlags, effectiveChain } from '../../../shared/evidence/custody-flags'
 import { todayIso } from '../../../shared/schemas/dates'
 import type {
   ClientSample,
@@ -11,7 +11,6 @@ import type {
 import { NotFound, ValidationError } from '../../errors'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
-import { effectiveChain } from '../../../shared/evidence/custody-flags'
 import { activeHoldIds, refuseUnderHold, requireNotice } from './guards'
 import { eventsOf, findSample, lineageOf, toSample, type SampleRow } from './sample-rows'
 

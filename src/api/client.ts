@@ -27,6 +27,8 @@ export interface RequestOptions {
   /** a multipart body (file uploads); the browser sets its content type */
   form?: FormData
   headers?: Record<string, string>
+  /** hears how much of a multipart body was sent (0…1); the request then goes by XHR */
+  onUploadProgress?: (share: number) => void
 }
 
 /** Whether an error means the session is gone or may do nothing before a password change. */
@@ -68,12 +70,43 @@ async function toApiError(response: Response): Promise<ApiError> {
   )
 }
 
+/** fetch cannot report upload progress; XHR can, and its answer is wrapped as a Response. */
+function sendWithProgress(
+  url: string,
+  init: { method: Method; headers: Record<string, string>; body?: FormData },
+  onProgress: (share: number) => void,
+): Promise<Response> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest()
+    xhr.open(init.method, url)
+    for (const [name, value] of Object.entries(init.headers)) xhr.setRequestHeader(name, value)
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable) onProgress(event.loaded / event.total)
+    }
+    xhr.onerror = () => reject(new TypeError('network error'))
+    xhr.onload = () => {
+      const headers = { 'Content-Type': xhr.getResponseHeader('Content-Type') ?? 'text/plain' }
+      const body = xhr.status === 204 ? null : xhr.responseText
+      resolve(new Response(body, { status: xhr.status, headers }))
+    }
+    xhr.send(init.body)
+  })
+}
+
 async function send(method: Method, path: string, options: RequestOptions, csrfToken?: string) {
   const headers: Record<string, string> = { Accept: 'application/json', ...options.headers }
   if (options.body !== undefined && !options.form) headers['Content-Type'] = 'application/json'
   if (csrfToken) headers['X-CSRF-Token'] = csrfToken
+  const url = withQuery(`/api${path}`, options.query)
   try {
-    return await fetch(withQuery(`/api${path}`, options.query), {
+    if (options.onUploadProgress && options.form) {
+      return await sendWithProgress(
+        url,
+        { method, headers, body: options.form },
+        options.onUploadProgress,
+      )
+    }
+    return await fetch(url, {
       method,
       headers,
       credentials: 'same-origin',
@@ -131,70 +164,6 @@ export async function request<T>(
     return await readBody<T>(response)
   } catch (error) {
     if (error instanceof ApiError && isSessionProblem(error)) sessionProblemListener?.(error, path)
-    throw error
-  }
-}
-
-function parseXhrAnswer<T>(xhr: XMLHttpRequest): T {
-  const body = (xhr.responseText ? JSON.parse(xhr.responseText) : undefined) as
-    { error?: { code?: string; message?: string; details?: unknown } } | undefined
-  if (xhr.status >= 200 && xhr.status < 300) return body as T
-  const error = body?.error
-  throw new ApiError(
-    xhr.status,
-    error?.code ?? 'http_error',
-    error?.message ?? `The server answered ${xhr.status}.`,
-    error?.details,
-  )
-}
-
-function postOnce<T>(
-  path: string,
-  form: FormData,
-  token: string,
-  onProgress: (share: number) => void,
-) {
-  return new Promise<T>((resolve, reject) => {
-    const xhr = new XMLHttpRequest()
-    xhr.open('POST', `/api${path}`)
-    xhr.setRequestHeader('Accept', 'application/json')
-    xhr.setRequestHeader('X-CSRF-Token', token)
-    xhr.upload.onprogress = (event) => {
-      if (event.lengthComputable) onProgress(event.loaded / event.total)
-    }
-    xhr.onerror = () =>
-      reject(
-        new ApiError(0, 'network_error', 'The server cannot be reached. Check the connection.'),
-      )
-    xhr.onload = () => {
-      try {
-        resolve(parseXhrAnswer<T>(xhr))
-      } catch (error) {
-        reject(error)
-      }
-    }
-    xhr.send(form)
-  })
-}
-
-/**
- * A multipart POST that reports how much of the body was sent (fetch cannot, for uploads), with
- * the same CSRF handling and error answers as `request()`.
- */
-export async function uploadWithProgress<T>(
-  path: string,
-  form: FormData,
-  onProgress: (share: number) => void,
-): Promise<T> {
-  const token = csrfToken ?? (await refreshCsrfToken())
-  try {
-    return await postOnce<T>(path, form, token, onProgress)
-  } catch (error) {
-    if (!(error instanceof ApiError)) throw error
-    if (error.code === 'csrf_invalid') {
-      return postOnce<T>(path, form, await refreshCsrfToken(), onProgress)
-    }
-    if (isSessionProblem(error)) sessionProblemListener?.(error, path)
     throw error
   }
 }

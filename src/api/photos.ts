@@ -1,5 +1,5 @@
 import type { Photo, PhotoUpdate } from '../../shared/schemas/photos'
-import { request, uploadWithProgress } from './client'
+import { request } from './client'
 
 export async function listPhotos(caseId: number, sampleId?: number): Promise<Photo[]> {
   const query = { sampleId }
@@ -15,7 +15,8 @@ export async function uploadPhoto(
   const form = new FormData()
   form.append('file', file)
   const path = `/cases/${caseId}/photos`
-  const { data } = await uploadWithProgress<{ data: Photo }>(path, form, onProgress)
+  const options = { form, onUploadProgress: onProgress }
+  const { data } = await request<{ data: Photo }>('POST', path, options)
   return data
 }
 

@@ -93,8 +93,17 @@ async function initialise(options: LocalMariadbOptions): Promise<void> {
   ])
 }
 
+/**
+ * MariaDB's temporary tables and sort files go into the instance's own folder: in a shared /tmp,
+ * another MariaDB starting on the same machine clears them away underneath a running query.
+ */
+function temporaryDir(dataDir: string): string {
+  return join(dataDir, 'tmp')
+}
+
 function launch(options: LocalMariadbOptions): void {
   const { dataDir, port } = options
+  mkdirSync(temporaryDir(dataDir), { recursive: true })
   const child = spawn(
     binary('mariadbd'),
     [
@@ -103,6 +112,7 @@ function launch(options: LocalMariadbOptions): void {
       `--socket=${socketPath(dataDir)}`,
       `--pid-file=${join(dataDir, 'mysqld.pid')}`,
       `--log-error=${join(dataDir, 'mysqld.err')}`,
+      `--tmpdir=${temporaryDir(dataDir)}`,
       `--port=${port}`,
       '--bind-address=127.0.0.1',
       '--user=root',

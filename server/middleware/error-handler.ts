@@ -19,7 +19,12 @@ function fromHttpError(error: HttpError): AppError | undefined {
     return new AppError('payload_too_large', 'The request body is too large.')
   }
   if (error.type === 'entity.parse.failed') {
-    return new ValidationError('The request body is not valid JSON.')
+    return new ValidationError(
+      'The request body is not valid JSON: send an application/json object.',
+    )
+  }
+  if (error.type === 'charset.unsupported' || error.type === 'encoding.unsupported') {
+    return new ValidationError('The request body must be an application/json object in UTF-8.')
   }
   return new ValidationError('The request could not be processed.')
 }

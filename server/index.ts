@@ -5,6 +5,8 @@ import type { Server } from 'node:http'
 import { createApp } from './app'
 import { ConfigError, loadConfig } from './config'
 import { createDb } from './db/knex'
+import { guardProcess } from './lifecycle/process-guard'
+import { gracefulShutdown, shutDownOnSignals } from './lifecycle/shutdown'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -26,18 +28,10 @@ async function main(): Promise<void> {
   const db = createDb(config.databaseUrl)
   const running: { server?: Server } = {}
 
-  let stopping = false
-  const shutdown = async (signal: string) => {
-    // Ctrl-C may arrive twice: from the terminal and passed on by `npm start`.
-    if (stopping) return
-    stopping = true
-    console.log(`${signal} received, shutting down…`)
-    await new Promise((done) => (running.server ? running.server.close(done) : done(undefined)))
-    await db.destroy()
-    process.exit(0)
-  }
-  process.on('SIGINT', () => void shutdown('SIGINT'))
-  process.on('SIGTERM', () => void shutdown('SIGTERM'))
+  // The private MariaDB, if any, belongs to scripts/start.ts, which stops it after this process.
+  const shutdown = () => gracefulShutdown({ server: running.server, db })
+  shutDownOnSignals(shutdown)
+  guardProcess({ onFatal: () => void shutdown().finally(() => process.exit(1)) })
 
   running.server = await listen(createApp({ db, config }), config.host, config.port)
   console.log(

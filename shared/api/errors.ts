@@ -19,6 +19,8 @@ export const ERROR_STATUS = {
   invalid_transition: 409,
   payload_too_large: 413,
   unsupported_file_type: 415,
+  /** an Idempotency-Key already used by this person for a different request */
+  idempotency_key_reused: 422,
   too_many_requests: 429,
   internal_error: 500,
   /** a stored record failed its hash check */

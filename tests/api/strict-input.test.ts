@@ -85,6 +85,23 @@ describe('ids in the address', () => {
   })
 })
 
+describe('ids and numbers in the query', () => {
+  it('refuses a loose organisation id or page number, naming the parameter', async () => {
+    const queries: [string, string][] = [
+      [`organisationId=0x${organisationId}`, 'organisationId'],
+      [`organisationId=${organisationId}%20`, 'organisationId'],
+      [`organisationId=${organisationId}&organisationId=${organisationId}`, 'organisationId'],
+      ['page=1e1', 'page'],
+      ['pageSize=010', 'pageSize'],
+    ]
+    for (const [query, field] of queries) {
+      const response = await investigator.get(`/api/cases?${query}`)
+      expect(response.status, query).toBe(400)
+      expect(details(response), query).toEqual([field])
+    }
+  })
+})
+
 describe('ids in the body', () => {
   it('refuses true, [2] and "0x2" where an id belongs, naming the field', async () => {
     const before = await snapshot()

@@ -9,7 +9,14 @@ let second: OwnMariadb
 const dbs: Db[] = []
 
 beforeAll(async () => {
-  ;[first, second] = await Promise.all([ownMariadb('tmpdir-a'), ownMariadb('tmpdir-b')])
+  // both set up at once, as two checkouts starting together would
+  const started = await Promise.allSettled([ownMariadb('tmpdir-a'), ownMariadb('tmpdir-b')])
+  const [a, b] = started.map((result) => (result.status === 'fulfilled' ? result.value : undefined))
+  if (!a || !b) {
+    await Promise.all([a?.remove(), b?.remove()])
+    throw started.find((result) => result.status === 'rejected')?.reason
+  }
+  ;[first, second] = [a, b]
 })
 afterAll(async () => {
   await Promise.all(dbs.map((db) => db.destroy()))

@@ -14,7 +14,8 @@ function runProbe(): Promise<{ status: number | null; lines: string[] }> {
   })
 }
 
-// One process of its own through tsx: seconds on a busy machine.
+// One process of its own through tsx: seconds on a busy machine, so it runs with the API tests,
+// one file at a time, rather than beside the parallel unit tests.
 it('keeps serving after an outage’s stray errors, and shuts down on any other', async () => {
   const { status, lines } = await runProbe()
   const logged = lines.filter((line) => !line.startsWith(' '))

@@ -78,7 +78,8 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const api = express.Router()
   // The built client is compressed ahead of time; answers of the API are compressed here.
   api.use(compression())
-  api.use(express.json({ limit: '100kb' }))
+  // not strict: a `null` or a bare number is refused by validate() with words saying what to send
+  api.use(express.json({ limit: '100kb', strict: false }))
   api.use(createSessionMiddleware(db, config).middleware)
   api.use(enforceAbsoluteLifetime(config))
   api.use(passport.session())

@@ -50,3 +50,10 @@ export class TooManyRequests extends AppError {
     super('too_many_requests', message)
   }
 }
+
+/** MariaDB cannot be reached at the moment; the same request may succeed shortly. */
+export class DatabaseUnavailable extends AppError {
+  constructor(message = 'The database is not available at the moment. Try again shortly.') {
+    super('database_unavailable', message)
+  }
+}

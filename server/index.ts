@@ -8,6 +8,8 @@ import { ConfigError, loadConfig } from './config'
 import { createDb } from './db/knex'
 import { sweepUploads } from './storage/sweep-uploads'
 import { createAnalysisPool, type AnalysisPool } from './tensile/analysis-pool'
+import { guardProcess } from './lifecycle/process-guard'
+import { gracefulShutdown, shutDownOnSignals } from './lifecycle/shutdown'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -29,19 +31,13 @@ async function main(): Promise<void> {
   const db = createDb(config.databaseUrl)
   const running: { server?: Server; pool?: AnalysisPool } = {}
 
-  let stopping = false
-  const shutdown = async (signal: string) => {
-    // Ctrl-C may arrive twice: from the terminal and passed on by `npm start`.
-    if (stopping) return
-    stopping = true
-    console.log(`${signal} received, shutting down…`)
-    await new Promise((done) => (running.server ? running.server.close(done) : done(undefined)))
+  // The private MariaDB, if any, belongs to scripts/start.ts, which stops it after this process.
+  const shutdown = async () => {
+    await gracefulShutdown({ server: running.server, db })
     await running.pool?.close()
-    await db.destroy()
-    process.exit(0)
   }
-  process.on('SIGINT', () => void shutdown('SIGINT'))
-  process.on('SIGTERM', () => void shutdown('SIGTERM'))
+  shutDownOnSignals(shutdown)
+  guardProcess({ onFatal: () => void shutdown().finally(() => process.exit(1)) })
 
   const swept = await sweepUploads(db, config.uploadsDir)
   if (swept > 0) console.log(`Removed ${swept} file(s) left behind by interrupted uploads.`)

@@ -23,6 +23,8 @@ export const csrfProtection: RequestHandler = (req, _res, next) => {
   )
 }
 
-export const issueCsrfToken: RequestHandler = (req, res) => {
-  res.json({ data: { token: generateToken(req) } })
+/** Saved before answering: a token whose session never reached the database would not work. */
+export const issueCsrfToken: RequestHandler = (req, res, next) => {
+  const token = generateToken(req)
+  req.session.save((error) => (error ? next(error) : res.json({ data: { token } })))
 }

@@ -22,13 +22,13 @@ export interface SessionHandle {
  * request, which gives the idle timeout (the stored expiry follows at most once a minute); `enforceAbsoluteLifetime` ends a session that is older
  * than the absolute limit however active it is.
  */
-export function createSessionMiddleware(db: Knex, config: Config): SessionHandle {
-  const store = new SessionStore({
-    knex: db,
-    tableName: 'sessions',
-    createTable: false,
-    cleanupInterval: config.nodeEnv === 'test' ? 0 : 10 * 60_000,
-  })
+export function createSessionMiddleware(
+  db: Knex,
+  config: Config,
+  log: (message: string) => void = console.error,
+): SessionHandle {
+  const cleanupMs = config.nodeEnv === 'test' ? 0 : 10 * 60_000
+  const store = new SessionStore({ db, cleanupMs, log })
   const middleware = session({
     name: 'fractolog.sid',
     secret: config.sessionSecret,
@@ -43,7 +43,7 @@ export function createSessionMiddleware(db: Knex, config: Config): SessionHandle
       maxAge: config.sessionIdleMinutes * 60_000,
     },
   })
-  return { middleware, close: () => clearTimeout(store.nextDbCleanup) }
+  return { middleware, close: () => store.close() }
 }
 
 export function enforceAbsoluteLifetime(config: Config): RequestHandler {

@@ -1,4 +1,5 @@
 import knex, { type Knex } from 'knex'
+import { quietConnectionWarnings } from './availability'
 
 const toSnake = (name: string) => name.replace(/[A-Z]/g, (letter) => `_${letter.toLowerCase()}`)
 const toCamel = (name: string) =>
@@ -12,6 +13,12 @@ function camelizeRow(row: unknown): unknown {
   return Object.fromEntries(Object.entries(row).map(([key, value]) => [toCamel(key), value]))
 }
 
+// During an outage a request should hear "unavailable" in seconds, not after the driver's own
+// limits (knex waits 60 s for a connection, mysql2 10 s for a handshake). A refused connection
+// fails at once anyway; these bound a server that accepts but does not answer.
+const ACQUIRE_TIMEOUT_MS = 5_000
+const CONNECT_TIMEOUT_MS = 3_000
+
 /** Knex on mysql2, with camelCase in the code and snake_case in MariaDB, converted here only. */
 export function createDb(url: string, poolOptions: Knex.PoolConfig = { min: 0, max: 10 }): Knex {
   // Every connection works in UTC, so TIMESTAMP columns read back as the instants they stored.
@@ -24,8 +31,16 @@ export function createDb(url: string, poolOptions: Knex.PoolConfig = { min: 0, m
   }
   return knex({
     client: 'mysql2',
-    connection: { uri: url, charset: 'utf8mb4', timezone: 'Z', dateStrings: ['DATE'] } as never,
+    connection: {
+      uri: url,
+      charset: 'utf8mb4',
+      timezone: 'Z',
+      dateStrings: ['DATE'],
+      connectTimeout: CONNECT_TIMEOUT_MS,
+    } as never,
     pool,
+    acquireConnectionTimeout: ACQUIRE_TIMEOUT_MS,
+    log: { warn: quietConnectionWarnings((message) => console.warn(message)) },
     wrapIdentifier: (value, wrap) => wrap(value === '*' ? value : toSnake(value)),
     postProcessResponse: camelizeRow,
   })

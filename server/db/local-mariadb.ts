@@ -80,21 +80,33 @@ export async function isRunning(options: LocalMariadbOptions): Promise<boolean> 
   }
 }
 
+/**
+ * MariaDB's temporary tables and sort files go into the instance's own folder: in a shared /tmp,
+ * another MariaDB starting on the same machine clears them away underneath a running query.
+ */
+function temporaryDir(dataDir: string): string {
+  return join(dataDir, 'tmp')
+}
+
 async function initialise(options: LocalMariadbOptions): Promise<void> {
   const dbDir = join(options.dataDir, 'db')
   if (existsSync(join(dbDir, 'mysql'))) return
   mkdirSync(dbDir, { recursive: true })
+  mkdirSync(temporaryDir(options.dataDir), { recursive: true })
   await run(binary('mariadb-install-db'), [
     '--no-defaults',
     `--datadir=${dbDir}`,
     '--user=root',
     '--auth-root-authentication-method=normal',
     '--skip-test-db',
+    // the bootstrap makes temporary tables too; passed on to mariadbd
+    `--tmpdir=${temporaryDir(options.dataDir)}`,
   ])
 }
 
 function launch(options: LocalMariadbOptions): void {
   const { dataDir, port } = options
+  mkdirSync(temporaryDir(dataDir), { recursive: true })
   const child = spawn(
     binary('mariadbd'),
     [
@@ -103,6 +115,7 @@ function launch(options: LocalMariadbOptions): void {
       `--socket=${socketPath(dataDir)}`,
       `--pid-file=${join(dataDir, 'mysqld.pid')}`,
       `--log-error=${join(dataDir, 'mysqld.err')}`,
+      `--tmpdir=${temporaryDir(dataDir)}`,
       `--port=${port}`,
       '--bind-address=127.0.0.1',
       '--user=root',

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
-import { AppError, NotFound, ValidationError } from '../errors'
+import { isDatabaseUnavailable, outageLogger } from '../db/availability'
+import { AppError, DatabaseUnavailable, NotFound, ValidationError } from '../errors'
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new NotFound(`No API route for ${req.method} ${req.baseUrl}${req.path}.`))
@@ -19,27 +20,38 @@ function fromHttpError(error: HttpError): AppError | undefined {
     return new AppError('payload_too_large', 'The request body is too large.')
   }
   if (error.type === 'entity.parse.failed') {
-    return new ValidationError('The request body is not valid JSON.')
+    return new ValidationError(
+      'The request body is not valid JSON: send an application/json object.',
+    )
+  }
+  if (error.type === 'charset.unsupported' || error.type === 'encoding.unsupported') {
+    return new ValidationError('The request body must be an application/json object in UTF-8.')
   }
   return new ValidationError('The request could not be processed.')
 }
 
+function knownError(error: unknown): AppError | undefined {
+  if (error instanceof AppError) return error
+  if (isDatabaseUnavailable(error)) return new DatabaseUnavailable()
+  if (typeof error === 'object' && error !== null) return fromHttpError(error as HttpError)
+  return undefined
+}
+
 export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {
+  const logOutage = outageLogger((message) => log(message))
   return (error: unknown, _req, res, _next) => {
-    const known =
-      error instanceof AppError
-        ? error
-        : typeof error === 'object' && error !== null
-          ? fromHttpError(error as HttpError)
-          : undefined
-    if (known) {
-      // a refusal of ours above 499 (a failed integrity check) still needs an operator's eye
-      if (known.status >= 500) log(error)
-      const body = { code: known.code, message: known.message, details: known.details }
-      res.status(known.status).json({ error: body })
+    const known = knownError(error)
+    if (known?.code === 'database_unavailable') logOutage(error)
+    // a refusal of ours above 499 (a failed integrity check) still needs an operator's eye
+    else if (!known || known.status >= 500) log(error)
+    // e.g. the session could not be saved after the answer went out: nothing more to say
+    if (res.headersSent) return
+    if (!known) {
+      res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong.' } })
       return
     }
-    log(error)
-    res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong.' } })
+    if (known.code === 'database_unavailable') res.set('Retry-After', '5')
+    const body = { code: known.code, message: known.message, details: known.details }
+    res.status(known.status).json({ error: body })
   }
 }

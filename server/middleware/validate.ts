@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express'
 import { z } from 'zod/mini'
 import type { FieldIssue } from '../../shared/api/errors'
 import { ValidationError } from '../errors'
+import { jsonObjectProblem } from './json-body'
 
 type Source = 'body' | 'query' | 'params'
 
@@ -29,6 +30,8 @@ export function parseOrThrow<T extends z.core.$ZodType>(
 export function validate<T extends z.core.$ZodType>(source: Source, schema: T): RequestHandler {
   const what = source === 'body' ? 'request body' : source === 'query' ? 'query' : 'URL'
   return (req, res, next) => {
+    const problem = source === 'body' ? jsonObjectProblem(req) : undefined
+    if (problem) throw new ValidationError(problem)
     res.locals[source] = parseOrThrow(schema, req[source], what)
     next()
   }

@@ -3,11 +3,13 @@ import type { Knex } from 'knex'
 import { ActivityQuery } from '../../shared/schemas/activity'
 import { CaseCreate, CaseListQuery, CaseStatusChange, CaseUpdate } from '../../shared/schemas/cases'
 import { allowOnCase, caseFileOf, caseLoader } from '../middleware/case-loader'
+import { idempotencyKeyOf } from '../middleware/idempotency-key'
 import { currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import { listActivity } from '../services/activity'
 import type { CaseService } from '../services/cases'
 import type { ServiceContext } from '../services/context'
+import { fingerprintOf, onceForKey, type Answer } from '../services/idempotency'
 import type { ServiceEventService } from '../services/service-events'
 import type { EvidenceServices } from '../services/evidence'
 import { evidenceRoutes } from './evidence'
@@ -68,6 +70,19 @@ function oneCaseRoutes(
   return router
 }
 
+/** Opens a case; with an Idempotency-Key, a repeat of the same request gets the first answer. */
+async function createOnce(req: Request, db: Knex, cases: CaseService, input: CaseCreate) {
+  const actor = currentUser(req)
+  const create = async (trx: Knex): Promise<Answer> => {
+    const created = await cases.create({ actor, db: trx }, input)
+    return { status: 201, body: { data: await cases.view({ actor, db: trx }, created) } }
+  }
+  const key = idempotencyKeyOf(req)
+  if (!key) return { ...(await create(db)), replayed: false }
+  const fingerprint = fingerprintOf('POST /api/cases', input)
+  return onceForKey(db, { personId: actor.id, key, fingerprint, now: new Date() }, create)
+}
+
 export function caseRoutes(
   db: Knex,
   cases: CaseService,
@@ -90,9 +105,9 @@ export function caseRoutes(
     requirePermission('case.create'),
     validate('body', CaseCreate),
     async (req, res) => {
-      const ctx = contextOf(req, db)
-      const created = await cases.create(ctx, res.locals.body as CaseCreate)
-      res.status(201).json({ data: await cases.view(ctx, created) })
+      const answer = await createOnce(req, db, cases, res.locals.body as CaseCreate)
+      if (answer.replayed) res.set('Idempotent-Replayed', 'true')
+      res.status(answer.status).json(answer.body)
     },
   )
   router.use(

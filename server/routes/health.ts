@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import type { Db } from '../db/knex'
+import { DatabaseUnavailable } from '../errors'
 
 export function healthRoutes(db: Db): Router {
   const router = Router()
@@ -8,9 +9,12 @@ export function healthRoutes(db: Db): Router {
       const [rows] = (await db.raw('SELECT VERSION() AS version')) as [{ version: string }[]]
       res.json({ data: { status: 'ok', database: { connected: true, version: rows[0]?.version } } })
     } catch {
-      res.status(503).json({
-        error: { code: 'database_unavailable', message: 'The database does not answer.' },
-      })
+      res.set('Retry-After', '5')
+      const { code, message } = new DatabaseUnavailable('The database does not answer.')
+      const database = { connected: false }
+      res
+        .status(503)
+        .json({ error: { code, message, details: { status: 'unavailable', database } } })
     }
   })
   return router

@@ -19,7 +19,10 @@ interface UserRow {
   createdAt: Date
 }
 
-const DUPLICATE_EMAIL = 'A person with this e-mail address already exists.'
+const DUPLICATE_EMAIL = {
+  index: 'users_email_unique',
+  message: 'A person with this e-mail address already exists.',
+}
 
 async function rolesOf(db: Knex, userIds: number[]): Promise<Map<number, Role[]>> {
   const rows = (await db('user_roles').whereIn('userId', userIds).orderBy('role')) as {

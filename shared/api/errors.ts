@@ -29,6 +29,8 @@ export const ERROR_STATUS = {
   image_unreadable: 422,
   /** the tensile engine refused the record or its options; the message is the engine's */
   tensile_input: 422,
+  /** an Idempotency-Key already used by this person for a different request */
+  idempotency_key_reused: 422,
   too_many_requests: 429,
   internal_error: 500,
   /** a stored record failed its hash check */

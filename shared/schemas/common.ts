@@ -1,7 +1,8 @@
 import { z } from 'zod/mini'
 import { FIRST_YEAR, isCalendarDay, LAST_YEAR } from './dates'
 
-const CANONICAL_ID = /^[1-9][0-9]{0,15}$/
+// At most 15 digits: every such number is exact in a double, so the text is never rounded.
+const CANONICAL_ID = /^[1-9][0-9]{0,14}$/
 
 /**
  * A record id: a positive integer, or its canonical decimal text (as URLs and queries carry it).

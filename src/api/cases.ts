@@ -10,6 +10,7 @@ import type {
   ClientCaseView,
 } from '../../shared/schemas/cases'
 import type { CaseState, ClientStage } from '../../shared/workflow/case-states'
+import { IDEMPOTENCY_HEADER } from '../../shared/api/idempotency'
 import { request } from './client'
 
 export interface CaseListFilter {
@@ -57,8 +58,12 @@ export async function fetchCase(id: number): Promise<CaseView> {
   return data
 }
 
-export async function createCase(newCase: CaseCreate): Promise<CaseDetail> {
-  const { data } = await request<{ data: CaseDetail }>('POST', '/cases', { body: newCase })
+/** The same `idempotencyKey` with the same case makes it once (see shared/api/idempotency.ts). */
+export async function createCase(newCase: CaseCreate, idempotencyKey: string): Promise<CaseDetail> {
+  const { data } = await request<{ data: CaseDetail }>('POST', '/cases', {
+    body: newCase,
+    headers: { [IDEMPOTENCY_HEADER]: idempotencyKey },
+  })
   return data
 }
 

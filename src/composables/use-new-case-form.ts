@@ -6,6 +6,7 @@ import { useFormErrors } from '@/composables/use-form-errors'
 import { useOrganisationsStore } from '@/stores/organisations'
 import { useSessionStore } from '@/stores/session'
 import type { Turnaround } from '../../shared/schemas/case-vocabulary'
+import { keyPerContent } from '../../shared/api/idempotency'
 import { CaseCreate } from '../../shared/schemas/cases'
 
 function emptyToNull(text: string): string | null {
@@ -18,6 +19,7 @@ export function useNewCaseForm() {
   const session = useSessionStore()
   const organisations = useOrganisationsStore()
   const { fieldErrors, formError, sending, validate, send, clearWhenEdited } = useFormErrors()
+  const keyFor = keyPerContent()
 
   const form = reactive({
     title: '',
@@ -58,7 +60,7 @@ export function useNewCaseForm() {
     })
     if (!newCase) return
     await send(async () => {
-      const created = await createCase(newCase)
+      const created = await createCase(newCase, keyFor(newCase))
       await router.push({ name: 'case', params: { id: created.id } })
     })
   }

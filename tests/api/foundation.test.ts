@@ -71,7 +71,9 @@ describe('API errors', () => {
       .send('{"broken":')
       .expect(400)
     expect(response.body.error.code).toBe('validation_failed')
-    expect(response.body.error.message).toBe('The request body is not valid JSON.')
+    expect(response.body.error.message).toBe(
+      'The request body is not valid JSON: send an application/json object.',
+    )
     expect(JSON.stringify(response.body)).not.toMatch(/at .*\.ts:\d+/)
   })
 

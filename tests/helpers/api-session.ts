@@ -8,7 +8,7 @@ export class ApiSession {
   readonly agent: Agent
   token = ''
 
-  constructor(app: Express) {
+  constructor(app: Express | string) {
     this.agent = request.agent(app)
   }
 
@@ -52,7 +52,7 @@ export class ApiSession {
   }
 }
 
-export async function signedIn(app: Express, email: string, password: string) {
+export async function signedIn(app: Express | string, email: string, password: string) {
   const session = new ApiSession(app)
   const response = await session.signIn(email, password)
   if (response.status !== 200) throw new Error(`sign-in failed: ${response.status}`)

@@ -1,3 +1,4 @@
+import { join } from 'node:path'
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createDb, type Db } from '../../server/db/knex'
@@ -37,7 +38,7 @@ beforeAll(async () => {
     const people = await Promise.all(
       Array.from({ length: WORKERS }, () => makePerson(db, ['investigator'])),
     )
-    server = await startServerProcess(databaseUrl)
+    server = await startServerProcess(databaseUrl, join(mariadb.options.dataDir, 'uploads'))
     sessions = await Promise.all(
       people.map((person) => signedIn(server.url, person.email, person.password)),
     )

@@ -17,10 +17,12 @@ export interface ServerProcess {
 
 /**
  * The real server entry (server/index.ts) in a process of its own, against `databaseUrl`, so a
- * test can watch whether the process survives what happens to it.
+ * test can watch whether the process survives what happens to it. `uploadsDir` must be a folder
+ * of the test's own: at start the server removes every file there that its database does not name.
  */
 export async function startServerProcess(
   databaseUrl: string,
+  uploadsDir: string,
   env: NodeJS.ProcessEnv = {},
 ): Promise<ServerProcess> {
   const port = await freePort()
@@ -32,6 +34,7 @@ export async function startServerProcess(
       HOST: '127.0.0.1',
       PORT: String(port),
       DATABASE_URL: databaseUrl,
+      UPLOADS_DIR: uploadsDir,
       DEMO_DATA: 'false',
       LOG_REQUESTS: 'false',
       PASSWORD_COST: '10',

@@ -5,7 +5,6 @@ import { findTransition, type CaseState } from '../shared/workflow/case-states'
 import { hashPassword } from '../server/auth/passwords'
 import { createCaseService } from '../server/services/cases'
 import { createServiceEventService } from '../server/services/service-events'
-import { createLocalStorage } from '../server/storage/local-storage'
 import { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { FileStorage } from '../server/storage/file-storage'
 import { seedDemoTensile } from './demo-tensile'
@@ -18,8 +17,8 @@ export interface DemoOptions {
   passwordCost?: number
   /** the day the scenario is seeded; its dates are relative to it */
   today?: Date
-  /** where the demo's raw tensile records go; without it the demo has no test records */
-  storage?: FileStorage
+  /** where the demo's stored files (raw tensile records) go */
+  storage: FileStorage
 }
 
 const WAY_TO: Record<DemoCase['status'], CaseState[]> = {
@@ -83,9 +82,14 @@ function caseInput(
 }
 
 /** Opens each demo case as the administrator and moves it on as its lead, step by step. */
-async function seedHistory(trx: Knex, demo: DemoCase, caseId: number, lead: Actor, today: Date) {
-  // the demo uploads no files, so this storage is never written to
-  const storage = createLocalStorage('uploads')
+async function seedHistory(
+  trx: Knex,
+  demo: DemoCase,
+  caseId: number,
+  lead: Actor,
+  today: Date,
+  storage: FileStorage,
+) {
   const events = createServiceEventService({ storage, clock: () => today })
   for (const { daysAgo, ...event } of demo.history ?? []) {
     const input = ServiceEventCreate.parse({ ...event, occurredOn: daysFrom(today, -daysAgo) })
@@ -98,7 +102,7 @@ async function seedCases(
   today: Date,
   organisationIds: Map<string, number>,
   actors: Map<string, Actor>,
-  storage: FileStorage | undefined,
+  storage: FileStorage,
 ) {
   const cases = createCaseService({ clock: () => today })
   const admin = actors.get('admin')!
@@ -106,13 +110,13 @@ async function seedCases(
     const input = caseInput(demo, today, organisationIds, actors)
     const created = await cases.create({ actor: admin, db: trx }, input)
     const lead = actors.get(demo.lead)!
-    await seedHistory(trx, demo, created.id, lead, today)
+    await seedHistory(trx, demo, created.id, lead, today, storage)
     let status = created.status
     for (const next of WAY_TO[demo.status]) {
       if (!findTransition(status, next)) throw new Error(`demo: no way from ${status} to ${next}`)
       status = (await cases.changeStatus({ actor: lead, db: trx }, created.id, next)).status
     }
-    if (storage && demo.tensileTested && demo.lab)
+    if (demo.tensileTested && demo.lab)
       await seedDemoTensile(trx, created.id, actors.get(demo.lab)!, storage, daysFrom(today, -20))
   }
 }

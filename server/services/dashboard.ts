@@ -127,9 +127,14 @@ export async function dashboardFor(
 ): Promise<Dashboard> {
   const today = todayIso(now)
   const weekAhead = todayIso(new Date(now.getTime() + WEEK_MS))
-  const lists: DashboardList[] = []
-  for (const [key, narrow, order] of plans(ctx, today, weekAhead)) {
-    lists.push({ key, cases: await listOf(ctx, narrow, order) })
-  }
-  return { lists, ...(await counts(ctx)) }
+  const [lists, totals] = await Promise.all([
+    Promise.all(
+      plans(ctx, today, weekAhead).map(async ([key, narrow, order]): Promise<DashboardList> => ({
+        key,
+        cases: await listOf(ctx, narrow, order),
+      })),
+    ),
+    counts(ctx),
+  ])
+  return { lists, ...totals }
 }

@@ -1,4 +1,8 @@
+import { mkdtempSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import type { Knex } from 'knex'
+import { createLocalStorage } from '../../server/storage/local-storage'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { dropAllTables, migrateLatest } from '../../server/db/migrations'
 
@@ -51,7 +55,8 @@ async function copyCases(db: Knex, total: number): Promise<void> {
 export async function seedBenchData(db: Knex, total: number): Promise<number> {
   await dropAllTables(db)
   await migrateLatest(db)
-  await seedDemoIfEmpty(db, { password: BENCH_PASSWORD, passwordCost: 10 })
+  const storage = createLocalStorage(mkdtempSync(join(tmpdir(), 'fractolog-bench-uploads-')))
+  await seedDemoIfEmpty(db, { password: BENCH_PASSWORD, passwordCost: 10, storage })
   const names = Array.from({ length: EXTRA_ORGANISATIONS }, (_, index) => ({
     name: `Bench client ${String(index + 1).padStart(2, '0')}`,
   }))

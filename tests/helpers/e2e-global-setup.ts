@@ -1,10 +1,13 @@
 import type { Server } from 'node:http'
 import type { AddressInfo } from 'node:net'
-import { resolve } from 'node:path'
+import { mkdtempSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
 import type { TestProject } from 'vitest/node'
 import { createApp } from '../../server/app'
 import { createDb } from '../../server/db/knex'
 import { dropAllTables, migrateLatest } from '../../server/db/migrations'
+import { createLocalStorage } from '../../server/storage/local-storage'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { testConfig } from './test-config'
 import { testDatabaseUrl } from './test-db'
@@ -21,9 +24,14 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const db = createDb(testDatabaseUrl('E2E_DATABASE_URL'))
   await dropAllTables(db)
   await migrateLatest(db)
-  const config = testConfig()
-  await seedDemoIfEmpty(db, { password: config.demoPassword, passwordCost: config.passwordCost })
-  const app = createApp({ db, config, clientDir: resolve(import.meta.dirname, '../../dist') })
+  // uploads of the browser journeys go to a folder of their own, never the checkout's
+  const uploadsDir = mkdtempSync(join(tmpdir(), 'fractolog-e2e-uploads-'))
+  const storage = createLocalStorage(uploadsDir)
+  const config = testConfig({ uploadsDir })
+  const { demoPassword: password, passwordCost } = config
+  await seedDemoIfEmpty(db, { password, passwordCost, storage })
+  const clientDir = resolve(import.meta.dirname, '../../dist')
+  const app = createApp({ db, config, clientDir, storage })
   const server = await new Promise<Server>((done) => {
     const listening = app.listen(0, '127.0.0.1', () => done(listening))
   })
@@ -33,5 +41,6 @@ export default async function setup(project: TestProject): Promise<() => Promise
   return async () => {
     await new Promise((done) => server.close(done))
     await db.destroy()
+    rmSync(uploadsDir, { recursive: true, force: true })
   }
 }

@@ -82,5 +82,6 @@ declare module 'vue' {
     Toast: typeof import('primevue/toast')['default']
     ToggleButton: typeof import('primevue/togglebutton')['default']
     ToggleSwitch: typeof import('primevue/toggleswitch')['default']
+    TurnaroundFields: typeof import('./components/case/record/TurnaroundFields.vue')['default']
   }
 }

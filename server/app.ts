@@ -31,6 +31,8 @@ import { specificationRoutes } from './routes/specifications'
 import { analyseInThread, type TensileAnalyser } from './tensile/analyse-upload'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
+import { findingsBodyParser, findingsRoutes } from './routes/findings'
+import { createFindingsService } from './services/findings'
 
 export interface AppDeps {
   db: Db
@@ -79,6 +81,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   // The built client is compressed ahead of time; answers of the API are compressed here.
   api.use(compression())
   // not strict: a `null` or a bare number is refused by validate() with words saying what to send
+  api.put('/cases/:id/findings', findingsBodyParser)
   api.use(express.json({ limit: '100kb', strict: false }))
   api.use(createSessionMiddleware(db, config).middleware)
   api.use(enforceAbsoluteLifetime(config))
@@ -95,7 +98,10 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const evidence = createEvidenceServices()
   const photos = createPhotoService({ storage: deps.storage })
   const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
-  const children = { photos: casePhotoRoutes(db, photos, incomingDir) }
+  const children = {
+    photos: casePhotoRoutes(db, photos, incomingDir),
+    findings: findingsRoutes(db, createFindingsService()),
+  }
   const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
   api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, tests, children))
   api.use('/specifications', ...signedIn, specificationRoutes(db))

@@ -54,6 +54,10 @@ export type CaseAction =
   | 'case.recordTests'
   /** confirm a test record, after which it is read-only */
   | 'case.confirmTests'
+  /** read the findings draft (staff only: clients read issued reports, never drafts) */
+  | 'case.readFindings'
+  /** write the findings draft */
+  | 'case.editFindings'
 
 export type Action = GlobalAction | CaseAction
 
@@ -84,6 +88,8 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'specifications.manage': ['admin'],
   'case.recordTests': ['admin', 'investigator', 'lab'],
   'case.confirmTests': ['admin', 'lab'],
+  'case.readFindings': STAFF_ROLES,
+  'case.editFindings': ['admin', 'investigator'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -94,6 +100,20 @@ export function partsIn(actor: Actor, caseRef: CaseRef) {
     lab: caseRef.labTechnicianId === actor.id,
     reviewer: caseRef.reviewerId === actor.id,
   }
+}
+
+/** The states in which the findings draft is open for writing (an approved one reopens). */
+export const FINDINGS_EDITABLE_STATES: readonly CaseState[] = [
+  'examination',
+  'drafting',
+  'revisions_requested',
+  'approved',
+]
+
+/** The case's own investigators write its findings, and only while a draft is being worked on. */
+function findingsEditor(actor: Actor, caseRef: CaseRef): boolean {
+  const parts = partsIn(actor, caseRef)
+  return (parts.lead || parts.coInvestigator) && FINDINGS_EDITABLE_STATES.includes(caseRef.status)
 }
 
 /**
@@ -110,7 +130,8 @@ function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
     )
   }
   if (action === 'case.view' || action === 'case.viewInternal') return true
-  if (action === 'case.viewActivity') return true
+  if (action === 'case.viewActivity' || action === 'case.readFindings') return true
+  if (action === 'case.editFindings') return findingsEditor(actor, caseRef)
   if (caseRef.status === 'closed') return false
   if (holds(actor, 'admin')) return true
   const parts = partsIn(actor, caseRef)
@@ -151,6 +172,8 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.editPhotos': true,
   'case.recordTests': true,
   'case.confirmTests': true,
+  'case.readFindings': true,
+  'case.editFindings': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

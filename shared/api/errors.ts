@@ -29,6 +29,8 @@ export const ERROR_STATUS = {
   image_unreadable: 422,
   /** the tensile engine refused the record or its options; the message is the engine's */
   tensile_input: 422,
+  /** a findings draft with an element, mark or attribute the editor does not make; `details.path` says where */
+  invalid_document: 422,
   /** an Idempotency-Key already used by this person for a different request */
   idempotency_key_reused: 422,
   too_many_requests: 429,

@@ -30,6 +30,8 @@ export const ACTIVITY_KINDS = [
   'tensile_record.revised',
   'tensile_record.invalidated',
   'tensile_record.confirmed',
+  'findings.edited',
+  'findings.approval_withdrawn',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -58,6 +60,8 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'specimen.added': 'Specimen added',
   'tensile_record.added': 'Tensile record uploaded',
   'tensile_record.recomputed': 'Tensile record recomputed',
+  'findings.edited': 'Findings edited',
+  'findings.approval_withdrawn': 'Approval withdrawn by an edit',
   'tensile_record.revised': 'Confirmed tensile record revised',
   'tensile_record.invalidated': 'Tensile record marked invalid',
   'tensile_record.confirmed': 'Tensile record confirmed',

@@ -61,6 +61,16 @@ const ROUTES: RouteCase[] = [
     expect: { admin: 400, investigator: 400, others: 403 },
   },
   { method: 'get', template: '/api/cases/:ownCase', expect: { others: 200 } },
+  // drafts are for staff; a client learns nothing of them, not even that one exists
+  { method: 'get', template: '/api/cases/:ownCase/findings', expect: { client: 404, others: 200 } },
+  // only the case's own investigators write them: these cases have none yet
+  {
+    method: 'put',
+    template: '/api/cases/:ownCase/findings',
+    body: {},
+    expect: { client: 404, others: 403 },
+  },
+
   { method: 'get', template: '/api/cases/:otherCase', expect: { client: 404, others: 200 } },
   {
     method: 'post',

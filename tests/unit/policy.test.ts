@@ -120,7 +120,15 @@ const row = (
   'case.editPhotos': evidence.handle,
   'case.recordTests': tests.record,
   'case.confirmTests': tests.confirm,
+  // every staff member reads the findings draft; who writes it depends on the state (below)
+  'case.readFindings': internal,
+  'case.editFindings': false,
 })
+
+// Only the case's own investigators write the findings, while a draft is being worked on: from
+// examination until approval (an edit of an approved draft reopens it), never after issue.
+const FINDINGS_WRITERS = ['lead', 'coInvestigator']
+const FINDINGS_OPEN_IN: CaseState[] = ['examination', 'drafting', 'revisions_requested', 'approved']
 
 // Test records: the case's lab technician, its lead and administrators record them; only the
 // case's lab technician and administrators confirm them.
@@ -167,8 +175,10 @@ const CLOSED: Record<keyof typeof WHO, Row> = {
 describe('access policy: person × part × case action × state', () => {
   for (const status of CASE_STATES) {
     const table = status === 'closed' ? CLOSED : OPEN
-    for (const [who, expected] of Object.entries(table)) {
+    for (const [who, row] of Object.entries(table)) {
       const { actor: person, unled } = WHO[who]!
+      const writes = FINDINGS_WRITERS.includes(who) && FINDINGS_OPEN_IN.includes(status)
+      const expected = { ...row, 'case.editFindings': writes }
       it(`${who} on a case in ${status}`, () => {
         const answers = Object.fromEntries(
           (Object.keys(expected) as CaseAction[]).map((action) => [

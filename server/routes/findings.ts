@@ -1,0 +1,46 @@
+import express, { Router, type RequestHandler } from 'express'
+import type { Knex } from 'knex'
+import { isStaff } from '../../shared/access/policy'
+import { MAX_DOCUMENT_BYTES } from '../../shared/findings/document'
+import { FindingsSave } from '../../shared/schemas/findings'
+import { NotFound } from '../errors'
+import { allowOnCase, caseFileOf } from '../middleware/case-loader'
+import { currentUser } from '../middleware/require-auth'
+import { validate } from '../middleware/validate'
+import type { FindingsService } from '../services/findings'
+
+/** Drafts do not exist for a client: they learn nothing, not even that one is being written. */
+export const hiddenFromClients: RequestHandler = (req, _res, next) => {
+  if (!isStaff(currentUser(req))) throw new NotFound()
+  next()
+}
+
+/**
+ * A draft may be far larger than the API's usual 100 kB bodies; this parser runs first for the
+ * save and the general one then leaves the parsed body alone.
+ */
+export const findingsBodyParser = express.json({
+  limit: MAX_DOCUMENT_BYTES + 64 * 1024,
+  strict: false,
+})
+
+/** `/api/cases/:id/findings`, behind the case loader. */
+export function findingsRoutes(db: Knex, findings: FindingsService): Router {
+  const router = Router({ mergeParams: true })
+  router.use(hiddenFromClients, allowOnCase('case.readFindings'))
+  router.get('/', async (req, res) => {
+    const actor = currentUser(req)
+    res.json({ data: await findings.read({ actor, db }, caseFileOf(res).id) })
+  })
+  router.put(
+    '/',
+    allowOnCase('case.editFindings'),
+    validate('body', FindingsSave),
+    async (req, res) => {
+      const input = res.locals.body as FindingsSave
+      const actor = currentUser(req)
+      res.json({ data: await findings.save({ actor, db }, caseFileOf(res).id, input) })
+    },
+  )
+  return router
+}

@@ -1,6 +1,8 @@
 import type { Knex } from 'knex'
 import type { Actor } from '../shared/access/policy'
+import { HardnessCreate } from '../shared/schemas/hardness'
 import { SpecimenCreate } from '../shared/schemas/mechanical-tests'
+import { recordHardness } from '../server/services/hardness'
 import { confirmRecord, uploadRecord } from '../server/services/mechanical-tests/records'
 import { createSpecimen } from '../server/services/mechanical-tests/specimens'
 import type { FileStorage } from '../server/storage/file-storage'
@@ -129,5 +131,21 @@ export async function seedDemoTensile(
     const options = { ...common, finalDiameter: scenario.finalDiameter }
     const { id } = await uploadRecord(deps, ctx, ids, file, JSON.stringify(options))
     await confirmRecord(ctx, caseId, id, 1)
+  }
+  // Hardness across the pin: harder at the surface than at the core, as for a quenched and
+  // tempered bar of this size (invented readings).
+  for (const [location, values] of [
+    ['Pin shank, 1 mm below the surface', [31.5, 32, 31]],
+    ['Pin shank, mid-radius', [29.5, 30, 29]],
+    ['Pin shank, core', [28, 28.5, 27.5]],
+  ] as const) {
+    const input = HardnessCreate.parse({
+      scale: 'HRC',
+      values,
+      location,
+      load: '150 kgf',
+      testedOn,
+    })
+    await recordHardness(ctx, caseId, input)
   }
 }

@@ -33,6 +33,7 @@ import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
 import { findingsBodyParser, findingsRoutes } from './routes/findings'
 import { createFindingsService } from './services/findings'
+import { hardnessRoutes } from './routes/hardness'
 
 export interface AppDeps {
   db: Db
@@ -101,6 +102,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const children = {
     photos: casePhotoRoutes(db, photos, incomingDir),
     findings: findingsRoutes(db, createFindingsService()),
+    hardness: hardnessRoutes(db),
   }
   const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
   api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, tests, children))

@@ -37,6 +37,8 @@ declare module 'vue' {
     DataTable: typeof import('primevue/datatable')['default']
     Dialog: typeof import('primevue/dialog')['default']
     FormField: typeof import('./components/common/FormField.vue')['default']
+    HardnessForm: typeof import('./components/tensile/HardnessForm.vue')['default']
+    HardnessTable: typeof import('./components/tensile/HardnessTable.vue')['default']
     HoldList: typeof import('./components/evidence/HoldList.vue')['default']
     InputNumber: typeof import('primevue/inputnumber')['default']
     InputText: typeof import('primevue/inputtext')['default']

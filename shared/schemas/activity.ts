@@ -32,6 +32,7 @@ export const ACTIVITY_KINDS = [
   'tensile_record.confirmed',
   'findings.edited',
   'findings.approval_withdrawn',
+  'hardness.recorded',
 ] as const
 export type ActivityKind = (typeof ACTIVITY_KINDS)[number]
 
@@ -61,6 +62,7 @@ export const ACTIVITY_KIND_LABELS: Record<ActivityKind, string> = {
   'tensile_record.added': 'Tensile record uploaded',
   'tensile_record.recomputed': 'Tensile record recomputed',
   'findings.edited': 'Findings edited',
+  'hardness.recorded': 'Hardness readings recorded',
   'findings.approval_withdrawn': 'Approval withdrawn by an edit',
   'tensile_record.revised': 'Confirmed tensile record revised',
   'tensile_record.invalidated': 'Tensile record marked invalid',

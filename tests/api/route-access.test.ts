@@ -61,6 +61,14 @@ const ROUTES: RouteCase[] = [
     expect: { admin: 400, investigator: 400, others: 403 },
   },
   { method: 'get', template: '/api/cases/:ownCase', expect: { others: 200 } },
+  // hardness readings are the lab's working results: staff read them, clients never
+  { method: 'get', template: '/api/cases/:ownCase/hardness', expect: { client: 404, others: 200 } },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/hardness',
+    body: {},
+    expect: { admin: 400, client: 404, others: 403 },
+  },
   // drafts are for staff; a client learns nothing of them, not even that one exists
   { method: 'get', template: '/api/cases/:ownCase/findings', expect: { client: 404, others: 200 } },
   // only the case's own investigators write them: these cases have none yet

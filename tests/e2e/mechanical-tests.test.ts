@@ -60,6 +60,14 @@ describe('mechanical tests', () => {
     await specimen.getByTestId('confirm-record').click()
     await expect.poll(() => specimen.textContent()).toContain('Confirmed')
     await screenshot(page, 'mechanical-tests-confirmed')
+
+    // hardness across the section, converted with the named table (ASTM E140, from memory)
+    await page.getByTestId('hardness-readings').fill('39.5 40 40.5')
+    await page.getByTestId('add-hardness').click()
+    const table = page.getByTestId('hardness-table')
+    await expect.poll(() => table.textContent()).toContain('40 HRC')
+    expect(await table.textContent()).toContain('392 HV')
+    expect(await table.textContent()).toContain('ASTM E140')
     expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 

@@ -54,6 +54,7 @@ declare module 'vue' {
     PersonDialog: typeof import('./components/people/PersonDialog.vue')['default']
     PhotoDetails: typeof import('./components/photos/PhotoDetails.vue')['default']
     PhotoGallery: typeof import('./components/photos/PhotoGallery.vue')['default']
+    PhotoLinks: typeof import('./components/photos/PhotoLinks.vue')['default']
     PhotoMarkEditor: typeof import('./components/photos/PhotoMarkEditor.vue')['default']
     PhotoMarksLayer: typeof import('./components/photos/PhotoMarksLayer.vue')['default']
     PhotoUploader: typeof import('./components/photos/PhotoUploader.vue')['default']

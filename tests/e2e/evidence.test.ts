@@ -1,6 +1,7 @@
 import { request, type APIRequestContext } from 'playwright-core'
 import { describe, expect, inject, it } from 'vitest'
 import { todayIso } from '../../shared/schemas/dates'
+import { plainJpeg } from '../factories/images'
 import { seriousAccessibilityProblems } from '../helpers/accessibility'
 import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
 
@@ -46,11 +47,29 @@ async function openCase(): Promise<number> {
   }
 }
 
+/** A photograph of the case, uploaded through the API as the lead investigator. */
+async function uploadPhoto(caseId: number): Promise<void> {
+  const api = await apiAs('investigator@demo.test')
+  try {
+    const csrf = (await (await api.get('/api/auth/csrf')).json()).data.token as string
+    const uploaded = await api.post(`/api/cases/${caseId}/photos`, {
+      headers: { 'X-CSRF-Token': csrf },
+      multipart: {
+        file: { name: 'thread-root.jpg', mimeType: 'image/jpeg', buffer: await plainJpeg() },
+      },
+    })
+    expect(uploaded.status(), await uploaded.text()).toBe(201)
+  } finally {
+    await api.dispose()
+  }
+}
+
 describe('the evidence of a case', () => {
   it('takes an item from receipt through notice, sectioning and transfer to an observation', async () => {
     const page = browser().page
     const base = inject('baseUrl')
     const caseId = await openCase()
+    await uploadPhoto(caseId)
     await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
 
     // receive the item
@@ -130,10 +149,18 @@ describe('the evidence of a case', () => {
     await page.getByTestId('observation-items').click()
     await page.getByRole('option', { name: `${itemId}.1` }).click()
     await page.keyboard.press('Escape')
+    await page.getByTestId('observation-photos').click()
+    await page.getByRole('option', { name: 'thread-root.jpg' }).click()
+    await page.keyboard.press('Escape')
     await page.getByTestId('save-observation').click()
     await expect
       .poll(() => page.getByTestId('observation-O-1').textContent())
       .toContain(`${itemId}.1`)
+    // the photo it cites is shown and opens in the viewer
+    const cited = page.getByTestId('observation-O-1').getByRole('link', { name: 'thread-root.jpg' })
+    await cited.click()
+    await page.getByTestId('photo-viewer').waitFor()
+    await page.goBack()
     await screenshot(page, 'evidence-observations')
     await checkAccessibility('observations')
 

@@ -76,6 +76,7 @@ declare module 'vue' {
     ServiceTimeline: typeof import('./components/history/ServiceTimeline.vue')['default']
     SortHeader: typeof import('./components/cases/SortHeader.vue')['default']
     SpecimenForm: typeof import('./components/tensile/SpecimenForm.vue')['default']
+    SpecimenOverlayChart: typeof import('./components/tensile/SpecimenOverlayChart.vue')['default']
     SpecimenSummary: typeof import('./components/tensile/SpecimenSummary.vue')['default']
     StressStrainChart: typeof import('./components/tensile/StressStrainChart.vue')['default']
     Tag: typeof import('primevue/tag')['default']

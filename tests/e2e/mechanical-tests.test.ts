@@ -85,5 +85,13 @@ describe('mechanical tests', () => {
     )
     expect(await page.getByTestId('confirm-record').count()).toBe(0)
     await screenshot(page, 'mechanical-tests-investigator')
+
+    // every specimen's curve in one chart, then as true stress–strain up to maximum force
+    await page.getByTestId('compare-curves').click()
+    const overlay = page.getByTestId('specimen-overlay')
+    await overlay.locator('canvas').waitFor()
+    await overlay.getByTestId('overlay-view').getByText('True (to maximum force)').click()
+    await overlay.locator('canvas').scrollIntoViewIfNeeded()
+    await screenshot(page, 'mechanical-tests-overlay-true')
   })
 })

@@ -1,9 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import {
-  hollomonLine,
-  trueCurve,
-  type TrueCurveInput,
-} from '../../shared/tensile/true-view'
+import { hollomonLine, trueCurve, type TrueCurveInput } from '../../shared/tensile/true-view'
 
 // True stress σt = σ(1 + ε) and true strain εt = ln(1 + ε) (ASTM E646, terms; also any
 // mechanics-of-materials text). A Hollomon material σt = K·εtⁿ reaches maximum force at εt = n

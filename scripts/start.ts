@@ -9,6 +9,7 @@ import { createDb } from '../server/db/knex'
 import { migrateLatest } from '../server/db/migrations'
 import { seedStarterSpecifications } from '../server/services/specifications'
 import { createLocalStorage } from '../server/storage/local-storage'
+import { startLocalMail, type LocalMail } from './local-mail'
 import { demoAccountsNote, seedDemoIfEmpty } from '../seeds/demo'
 import { runStep } from './run-step'
 
@@ -61,8 +62,8 @@ async function build(): Promise<boolean> {
   return (await runStep('npx', ['tsx', 'scripts/build-server.ts'])) === 0
 }
 
-function startServer(databaseUrl: string): ChildProcess {
-  const serverEnv = { ...env, DATABASE_URL: databaseUrl }
+function startServer(databaseUrl: string, smtpUrl: string | undefined): ChildProcess {
+  const serverEnv = { ...env, DATABASE_URL: databaseUrl, ...(smtpUrl ? { SMTP_URL: smtpUrl } : {}) }
   const [command, args] = watch
     ? ['npx', ['tsx', 'watch', 'server/index.ts']]
     : [process.execPath, ['--enable-source-maps', 'dist-server/server.js']]
@@ -79,15 +80,18 @@ async function main(): Promise<number> {
     return 1
   }
   const database = await resolveDatabase(config.databaseUrl, 'fractolog')
+  let mail: LocalMail | undefined
   try {
     await prepareDatabase(config, database.url)
-    const server = startServer(database.url)
+    mail = await startLocalMail(config, database.url)
+    const server = startServer(database.url, mail?.url)
     // Ctrl-C reaches the server too (same process group); a plain SIGTERM to npm is passed on.
     for (const signal of ['SIGINT', 'SIGTERM'] as const) {
       process.on(signal, () => server.kill(signal))
     }
     return await new Promise<number>((done) => server.once('exit', (code) => done(code ?? 0)))
   } finally {
+    await mail?.stop()
     if (database.local) {
       await database.local.stop()
       console.log('Private MariaDB stopped.')

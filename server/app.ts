@@ -28,6 +28,7 @@ import { casePhotoRoutes, photoRoutes } from './routes/photos'
 import { createPhotoService } from './services/photos/photos'
 import { incomingDirOf } from './middleware/upload'
 import { specificationRoutes } from './routes/specifications'
+import { adminMailRoutes } from './routes/admin-mail'
 import { analyseInThread, type TensileAnalyser } from './tensile/analyse-upload'
 import type { FileStorage } from './storage/file-storage'
 import { createLocalStorage } from './storage/local-storage'
@@ -110,6 +111,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/photos', ...signedIn, photoRoutes(db, cases, photos))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
+  api.use('/admin', ...signedIn, adminMailRoutes(db, { demo: config.demoData }))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api

@@ -31,6 +31,14 @@ const ConfigSchema = z.object({
   LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   LOGIN_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(30),
   LOGIN_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  SMTP_URL: z.url({ protocol: /^smtps?$/ }).optional(),
+  MAIL_FROM: z.string().min(3).default('Fractolog <notices@fractolog.invalid>'),
+  MAIL_RETRY_MINUTES: z
+    .string()
+    .regex(/^\d+(\.\d+)?(,\d+(\.\d+)?)*$/, 'a comma-separated list of minutes, e.g. 1,5,30,60')
+    .default('1,5,30,60'),
+  MAIL_GIVE_UP_HOURS: z.coerce.number().positive().default(24),
+  MAIL_POLL_SECONDS: z.coerce.number().positive().default(5),
 })
 
 export type Config = {
@@ -51,6 +59,19 @@ export type Config = {
   /** scrypt cost exponent: N = 2^passwordCost (17 is the OWASP recommendation) */
   passwordCost: number
   loginLimits: { perAccount: number; perAddress: number; windowMinutes: number }
+  mail: MailConfig
+}
+
+export interface MailConfig {
+  /** where the sender delivers; unset: notices wait in the outbox */
+  smtpUrl: string | undefined
+  from: string
+  /** waits between tries, in minutes; the last one repeats */
+  retryMinutes: number[]
+  /** a message still failing this long after it was queued is given up */
+  giveUpHours: number
+  /** how often the sender looks for due messages */
+  pollSeconds: number
 }
 
 export class ConfigError extends Error {}
@@ -90,6 +111,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       perAccount: value.LOGIN_LIMIT_PER_ACCOUNT,
       perAddress: value.LOGIN_LIMIT_PER_ADDRESS,
       windowMinutes: value.LOGIN_LIMIT_WINDOW_MINUTES,
+    },
+    mail: {
+      smtpUrl: value.SMTP_URL,
+      from: value.MAIL_FROM,
+      retryMinutes: value.MAIL_RETRY_MINUTES.split(',').map(Number),
+      giveUpHours: value.MAIL_GIVE_UP_HOURS,
+      pollSeconds: value.MAIL_POLL_SECONDS,
     },
   }
 }

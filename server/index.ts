@@ -10,6 +10,7 @@ import { sweepUploads } from './storage/sweep-uploads'
 import { createAnalysisPool, type AnalysisPool } from './tensile/analysis-pool'
 import { guardProcess } from './lifecycle/process-guard'
 import { gracefulShutdown, shutDownOnSignals } from './lifecycle/shutdown'
+import { startMailSender, type MailSender } from './mail/start-sender'
 
 const NO_DATABASE = [
   'DATABASE_URL is not set. Set it to the MariaDB the server should use,',
@@ -29,11 +30,12 @@ async function main(): Promise<void> {
   const config = loadConfig()
   if (!config.databaseUrl) throw new ConfigError(NO_DATABASE)
   const db = createDb(config.databaseUrl)
-  const running: { server?: Server; pool?: AnalysisPool } = {}
+  const running: { server?: Server; pool?: AnalysisPool; mail?: MailSender } = {}
 
   // The private MariaDB, if any, belongs to scripts/start.ts, which stops it after this process.
   const shutdown = async () => {
-    await gracefulShutdown({ server: running.server, db })
+    const stopBackground = async () => running.mail?.stop()
+    await gracefulShutdown({ server: running.server, db, stopBackground })
     await running.pool?.close()
   }
   shutDownOnSignals(shutdown)
@@ -43,6 +45,7 @@ async function main(): Promise<void> {
   if (swept > 0) console.log(`Removed ${swept} file(s) left behind by interrupted uploads.`)
   const pool = createAnalysisPool(Math.max(1, availableParallelism() - 1))
   running.pool = pool
+  running.mail = startMailSender(db, config)
   const app = createApp({ db, config, analyseTensile: pool.analyse })
   running.server = await listen(app, config.host, config.port)
   console.log(

@@ -5,6 +5,8 @@ export interface ShutdownTargets {
   /** the listening HTTP server; absent when the signal came before it listened */
   server?: Server
   db: Knex
+  /** stops background work that uses the pool (the mail sender); awaited before it closes */
+  stopBackground?: () => Promise<void>
   /** stops the private MariaDB this process started; called last */
   stopDatabase?: () => Promise<void>
   /** how long requests in flight may take to finish before their connections are cut */
@@ -17,7 +19,8 @@ const say = (message: string) => void process.stdout.write(`${message}\n`)
 
 /**
  * Stops accepting connections, lets the requests in flight finish (bounded by `graceMs`), then
- * closes the database pool, then stops the private MariaDB: in that order, so no request loses
+ * stops background work (the mail sender finishes the message it is sending), then closes the
+ * database pool, then stops the private MariaDB: in that order, so no request or message loses
  * its database half-way and MariaDB never stops under an open connection.
  */
 export async function gracefulShutdown(targets: ShutdownTargets): Promise<void> {
@@ -26,6 +29,7 @@ export async function gracefulShutdown(targets: ShutdownTargets): Promise<void> 
     const cut = await closeServer(server, graceMs)
     if (cut) log(`Requests still running after ${graceMs / 1000} s were cut off.`)
   }
+  await targets.stopBackground?.()
   await db.destroy()
   if (stopDatabase) {
     await stopDatabase()

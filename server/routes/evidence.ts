@@ -56,7 +56,7 @@ function sampleRoutes(db: Knex, { samples, custody }: EvidenceServices): Router 
   return router
 }
 
-/** `/notices…` and `/notice-period`: staff only; E-mail is not sent yet, answers are recorded. */
+/** `/notices…` and `/notice-period`: staff only; a new notice is e-mailed to the parties (outbox). */
 function noticeRoutes(db: Knex, { notices }: EvidenceServices): Router {
   const router = Router({ mergeParams: true })
   const NoticeParams = z.looseObject({ noticeId: Id })

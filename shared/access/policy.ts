@@ -29,6 +29,8 @@ export type GlobalAction =
   | 'specifications.list'
   /** add and change specification records, and record their check against the edition */
   | 'specifications.manage'
+  /** see the outbox and resend, and (demo mode) read what the local SMTP server received */
+  | 'mail.manage'
 
 export type CaseAction =
   /** see that the case exists (a client: as a plain status line) */
@@ -86,6 +88,7 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.editPhotos': ['admin', 'investigator', 'lab'],
   'specifications.list': STAFF_ROLES,
   'specifications.manage': ['admin'],
+  'mail.manage': ['admin'],
   'case.recordTests': ['admin', 'investigator', 'lab'],
   'case.confirmTests': ['admin', 'lab'],
   'case.readFindings': STAFF_ROLES,

@@ -50,6 +50,7 @@ const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
     reviewer: false,
     client: false,
   },
+  'mail.manage': { admin: true, investigator: false, lab: false, reviewer: false, client: false },
 }
 
 describe('access policy: role × action', () => {

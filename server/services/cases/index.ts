@@ -17,6 +17,7 @@ import { checkCaseRecord } from './case-checks'
 import { listCases } from './case-list'
 import { nextCaseNumber } from './case-number'
 import { writeCaseTerms } from './case-terms'
+import { queueAssignmentNotices } from './assignment-notices'
 import {
   caseColumns,
   changedFields,
@@ -72,6 +73,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
         kind: 'case.created',
         details: { number },
       })
+      await queueAssignmentNotices(trx, caseId, input, actor.id, clock)
       return caseId
     })
     return findCase(db, id)
@@ -118,6 +120,8 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
         kind: kindOfEdit(fields),
         details: { changes },
       })
+      const assigned = Object.fromEntries(fields.map((f) => [f, after[f]]))
+      await queueAssignmentNotices(trx, caseId, assigned, actor.id, clock)
       return findCase(trx, caseId)
     })
   }

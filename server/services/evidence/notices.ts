@@ -7,6 +7,7 @@ import { Conflict, NotFound, ValidationError } from '../../errors'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
 import { loadNotices } from './notice-rows'
+import { queueNotice } from '../notices/queue-notice'
 
 function refuse(path: string, message: string): never {
   throw new ValidationError(message, [{ path, message }])
@@ -23,8 +24,8 @@ async function checkSamplesOfCase(trx: Knex, caseId: number, sampleIds: number[]
 }
 
 /**
- * Notices before destructive work (ASTM E860 practice). E-mail does not exist yet: the notice
- * and the parties' answers are recorded as given.
+ * Notices before destructive work (ASTM E860 practice). A notice is e-mailed to the parties
+ * with an address (queued in the same transaction); their answers are recorded as given.
  */
 export function createNoticeService(deps: { clock?: () => Date } = {}) {
   const clock = deps.clock ?? (() => new Date())
@@ -73,6 +74,8 @@ export function createNoticeService(deps: { clock?: () => Date } = {}) {
         kind: 'notice.recorded',
         details,
       })
+      const toParties = { caseId: caseRef.id, noticeId: noticeId as number }
+      await queueNotice(trx, { kind: 'destructive_testing_notice', ...toParties }, clock)
       return noticeId as number
     })
     return one(db, caseRef.id, id)

@@ -1,6 +1,12 @@
 import type { Knex } from 'knex'
 import { renderNotice } from '../services/notices/render'
-import { claimDueRows, recordFailed, recordSent, storedNoticeOf, type OutboxRow } from './outbox-rows'
+import {
+  claimDueRows,
+  recordFailed,
+  recordSent,
+  storedNoticeOf,
+  type OutboxRow,
+} from './outbox-rows'
 import { nextTryAt, type RetryPolicy } from './retry-schedule'
 import type { MailTransport } from './smtp-transport'
 

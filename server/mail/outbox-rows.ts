@@ -62,7 +62,11 @@ export async function recordSent(db: Knex, row: OutboxRow, at: Date): Promise<vo
         lastError: null,
         updatedAt: trx.fn.now(),
       })
-    await trx('outbox_attempts').insert({ outboxMessageId: row.id, attemptedAt: at, outcome: 'sent' })
+    await trx('outbox_attempts').insert({
+      outboxMessageId: row.id,
+      attemptedAt: at,
+      outcome: 'sent',
+    })
   })
 }
 

@@ -9,7 +9,7 @@ export type { MailSender } from './mail-sender'
 export function startMailSender(db: Knex, config: Config): MailSender | undefined {
   const { smtpUrl, from, retryMinutes, giveUpHours, pollSeconds } = config.mail
   if (!smtpUrl) {
-    console.log('SMTP_URL is not set: e-mail notices wait in the outbox until it is.')
+    console.warn('SMTP_URL is not set: e-mail notices wait in the outbox until it is.')
     return undefined
   }
   const sender = createMailSender({

@@ -82,8 +82,7 @@ export async function resendOutboxMessage(
 ): Promise<OutboxMessage> {
   await db.transaction(async (trx) => {
     const row = (await trx('outbox_messages').where({ id }).forUpdate().first('status')) as
-      | { status: OutboxStatus }
-      | undefined
+      { status: OutboxStatus } | undefined
     if (!row) throw new NotFound('No such message in the outbox.')
     if (row.status === 'queued') throw new Conflict('This message is waiting to be sent already.')
     await trx('outbox_messages')

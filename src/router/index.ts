@@ -78,6 +78,18 @@ export const router = createRouter({
       meta: { roles: ADMINS, title: 'Organisations' },
     },
     {
+      path: '/admin/outbox',
+      name: 'outbox',
+      component: () => import('@/views/OutboxView.vue'),
+      meta: { roles: ADMINS, title: 'Outbox' },
+    },
+    {
+      path: '/admin/mail',
+      name: 'mail-sent',
+      component: () => import('@/views/MailSentView.vue'),
+      meta: { roles: ADMINS, title: 'Mail sent' },
+    },
+    {
       path: '/:pathMatch(.*)*',
       name: 'not-found',
       component: () => import('@/views/NotFoundView.vue'),

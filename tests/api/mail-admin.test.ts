@@ -47,14 +47,21 @@ describe('GET /api/admin/mail (demo mode)', () => {
     await makeCase(db, organisationId, people.admin.id, { reviewerId: people.reviewer.id })
     await rig.sender.runOnce()
     const response = await sessions.admin.get('/api/admin/mail').expect(200)
-    const items = response.body.data as { to: string; subject: string; text: string; receivedAt: string }[]
+    const items = response.body.data as {
+      to: string
+      subject: string
+      text: string
+      receivedAt: string
+    }[]
     expect(items.map((item) => item.to)).toEqual([
       expect.stringContaining(people.reviewer.email),
       expect.stringContaining(people.lead.email),
     ])
     expect(items[0]!.subject).toMatch(/^FL-\d{4}-\d{4}: you are the reviewer/)
     expect(items[0]!.text).toContain('You were made the reviewer of case')
-    expect(Date.parse(items[0]!.receivedAt)).toBeGreaterThanOrEqual(Date.parse(items[1]!.receivedAt))
+    expect(Date.parse(items[0]!.receivedAt)).toBeGreaterThanOrEqual(
+      Date.parse(items[1]!.receivedAt),
+    )
   })
 
   it('refuses everyone but administrators, and is not there outside demo mode', async () => {
@@ -112,7 +119,9 @@ describe('the outbox for administrators', () => {
     await rig.sender.runOnce()
     const [row] = await outboxRows(db)
     for (const key of ['lead', 'lab', 'reviewer', 'client'] as const) {
-      expect((await sessions[key].post(`/api/admin/outbox/${row!.id}/resend`)).status, key).toBe(403)
+      expect((await sessions[key].post(`/api/admin/outbox/${row!.id}/resend`)).status, key).toBe(
+        403,
+      )
     }
     expect((await sessions.admin.post('/api/admin/outbox/999999/resend')).status).toBe(404)
     expect(await outboxRows(db)).toMatchObject([{ status: 'sent', attempts: 1 }])
@@ -125,7 +134,10 @@ describe('headers cannot be injected', () => {
     await db('users')
       .where({ id: eve.id })
       .update({ name: 'Eve\r\nBcc: victim@example.test\r\nX-Injected: yes' })
-    const title = `Shaft\r\nX-Title-Injected: yes ${'and a very long title '.repeat(9)}`.slice(0, 191)
+    const title = `Shaft\r\nX-Title-Injected: yes ${'and a very long title '.repeat(9)}`.slice(
+      0,
+      191,
+    )
     const record = await makeCase(db, organisationId, people.admin.id)
     // straight into the row: whatever the form allows, the mail must stay safe
     await db('cases').where({ id: record.id }).update({ title })
@@ -140,7 +152,9 @@ describe('headers cannot be injected', () => {
       .split('\r\n')
       .filter((line) => !/^[ \t]/.test(line))
       .map((line) => line.slice(0, line.indexOf(':')).toLowerCase())
-    expect(names.filter((name) => ['bcc', 'x-injected', 'x-title-injected'].includes(name))).toEqual([])
+    expect(
+      names.filter((name) => ['bcc', 'x-injected', 'x-title-injected'].includes(name)),
+    ).toEqual([])
     expect(names.filter((name) => name === 'to')).toHaveLength(1)
     expect(names.filter((name) => name === 'subject')).toHaveLength(1)
     expect(mail!.parsed.bcc).toBeUndefined()

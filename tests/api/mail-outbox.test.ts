@@ -51,7 +51,10 @@ const newCase = (parts: Record<string, number | null>) => ({
 
 async function caseWithLeadAndLab() {
   const response = await sessions.admin
-    .post('/api/cases', newCase({ leadInvestigatorId: people.lead.id, labTechnicianId: people.lab.id }))
+    .post(
+      '/api/cases',
+      newCase({ leadInvestigatorId: people.lead.id, labTechnicianId: people.lab.id }),
+    )
     .expect(201)
   return response.body.data as { id: number; number: string; version: number }
 }
@@ -106,7 +109,10 @@ describe('assignment notices', () => {
   it('a lead who takes a case on is not told of it', async () => {
     const created = (await sessions.admin.post('/api/cases', newCase({})).expect(201)).body.data
     await sessions.lead2
-      .patch(`/api/cases/${created.id}`, { version: created.version, leadInvestigatorId: people.lead2.id })
+      .patch(`/api/cases/${created.id}`, {
+        version: created.version,
+        leadInvestigatorId: people.lead2.id,
+      })
       .expect(200)
     expect(await outboxRows(db)).toHaveLength(0)
   })
@@ -138,7 +144,10 @@ describe('when the SMTP server is down', () => {
     await rig.stopSmtp()
     const created = await caseWithLeadAndLab()
     await sessions.lead
-      .patch(`/api/cases/${created.id}`, { version: created.version, reviewerId: people.reviewer.id })
+      .patch(`/api/cases/${created.id}`, {
+        version: created.version,
+        reviewerId: people.reviewer.id,
+      })
       .expect(200)
     expect(await rig.sender.runOnce()).toEqual({ sent: 0, failed: 3 })
     const waiting = await outboxRows(db)
@@ -149,7 +158,12 @@ describe('when the SMTP server is down', () => {
     ])
     const tries = await db('outbox_attempts').select('outcome', 'error')
     expect(tries).toHaveLength(3)
-    expect(tries.every((entry: { outcome: string; error: string }) => entry.outcome === 'failed' && entry.error.length > 0)).toBe(true)
+    expect(
+      tries.every(
+        (entry: { outcome: string; error: string }) =>
+          entry.outcome === 'failed' && entry.error.length > 0,
+      ),
+    ).toBe(true)
 
     await rig.restartSmtp()
     clock.advanceMinutes(1)

@@ -37,8 +37,11 @@ async function waitFor(check: () => Promise<boolean>, what: string) {
 }
 
 const statusOf = async (address: string) =>
-  ((await db('outbox_messages').where({ toAddress: address }).first('status')) as { status: string })
-    .status
+  (
+    (await db('outbox_messages').where({ toAddress: address }).first('status')) as {
+      status: string
+    }
+  ).status
 
 describe('the sender in a running server', () => {
   it('stop() waits for the pass in progress, and nothing is sent after it', async () => {

@@ -18,9 +18,19 @@ let caseNumber: string
 let rig: Awaited<ReturnType<typeof mailRig>>
 
 const PARTIES = [
-  { name: 'Insurer’s engineer', organisation: 'Cover Mutual', email: 'engineer@cover.example.test', role: 'insurer' },
+  {
+    name: 'Insurer’s engineer',
+    organisation: 'Cover Mutual',
+    email: 'engineer@cover.example.test',
+    role: 'insurer',
+  },
   { name: 'Supplier’s counsel', organisation: 'Forge Works', email: null, role: 'counsel' },
-  { name: 'Operator', organisation: 'Plant Ltd', email: 'ops@plant.example.test', role: 'operator' },
+  {
+    name: 'Operator',
+    organisation: 'Plant Ltd',
+    email: 'ops@plant.example.test',
+    role: 'operator',
+  },
 ]
 
 beforeAll(async () => {
@@ -61,7 +71,10 @@ async function received() {
     text: string
     html: string
   }[]
-  return rows.map((row) => ({ ...row, to: /<([^>]+)>/.exec(row.toAddresses)?.[1] ?? row.toAddresses }))
+  return rows.map((row) => ({
+    ...row,
+    to: /<([^>]+)>/.exec(row.toAddresses)?.[1] ?? row.toAddresses,
+  }))
 }
 
 async function queueAndDeliver(notice: Notice) {
@@ -74,18 +87,56 @@ const caseLink = (section = '') => `${PUBLIC_URL}/cases/${caseId}${section}`
 
 describe('every kind of notice reaches exactly its people, once, with its link', () => {
   const cases: [string, () => Notice, () => string[], RegExp, string, string?][] = [
-    ['review requested → the reviewer', () => ({ kind: 'review_requested', caseId }),
-      () => [people.reviewer.email], /: review requested — /, '/review'],
-    ['revisions requested → the lead, with the reason', () => ({ kind: 'revisions_requested', caseId, reason: 'Show the <origin> on figure 3.' }),
-      () => [people.lead.email], /: revisions requested — /, '/review', 'Show the <origin> on figure 3.'],
-    ['approved → the lead', () => ({ kind: 'approved', caseId }),
-      () => [people.lead.email], /: report approved — /, '/review'],
-    ['client question → the lead', () => ({ kind: 'client_question', caseId, askedById: people.client.id, question: 'When will the report be ready?' }),
-      () => [people.lead.email], /: question from Test client — /, '', 'When will the report be ready?'],
-    ['answer → the person who asked', () => ({ kind: 'answer', caseId, askedById: people.client2.id, answer: 'Next Friday.' }),
-      () => [people.client2.email], /: your question was answered — /, '', 'Next Friday.'],
-    ['assigned → the person given the part', () => ({ kind: 'assigned', caseId, personId: people.lab.id, part: 'lab' }),
-      () => [people.lab.email], /: you are the lab technician — /, ''],
+    [
+      'review requested → the reviewer',
+      () => ({ kind: 'review_requested', caseId }),
+      () => [people.reviewer.email],
+      /: review requested — /,
+      '/review',
+    ],
+    [
+      'revisions requested → the lead, with the reason',
+      () => ({ kind: 'revisions_requested', caseId, reason: 'Show the <origin> on figure 3.' }),
+      () => [people.lead.email],
+      /: revisions requested — /,
+      '/review',
+      'Show the <origin> on figure 3.',
+    ],
+    [
+      'approved → the lead',
+      () => ({ kind: 'approved', caseId }),
+      () => [people.lead.email],
+      /: report approved — /,
+      '/review',
+    ],
+    [
+      'client question → the lead',
+      () => ({
+        kind: 'client_question',
+        caseId,
+        askedById: people.client.id,
+        question: 'When will the report be ready?',
+      }),
+      () => [people.lead.email],
+      /: question from Test client — /,
+      '',
+      'When will the report be ready?',
+    ],
+    [
+      'answer → the person who asked',
+      () => ({ kind: 'answer', caseId, askedById: people.client2.id, answer: 'Next Friday.' }),
+      () => [people.client2.email],
+      /: your question was answered — /,
+      '',
+      'Next Friday.',
+    ],
+    [
+      'assigned → the person given the part',
+      () => ({ kind: 'assigned', caseId, personId: people.lab.id, part: 'lab' }),
+      () => [people.lab.email],
+      /: you are the lab technician — /,
+      '',
+    ],
   ]
   for (const [name, notice, to, subject, section, quote] of cases) {
     it(name, async () => {
@@ -105,8 +156,14 @@ describe('every kind of notice reaches exactly its people, once, with its link',
   }
 
   it('report issued → every active person of the client organisation, subject led by the report number', async () => {
-    const mail = await queueAndDeliver({ kind: 'report_issued', caseId, reportNumber: 'R-2026-0042' })
-    expect(mail.map((item) => item.to).sort()).toEqual([people.client.email, people.client2.email].sort())
+    const mail = await queueAndDeliver({
+      kind: 'report_issued',
+      caseId,
+      reportNumber: 'R-2026-0042',
+    })
+    expect(mail.map((item) => item.to).sort()).toEqual(
+      [people.client.email, people.client2.email].sort(),
+    )
     for (const item of mail) {
       expect(item.subject).toBe(`R-2026-0042: report issued for case ${caseNumber}`)
       expect(item.text).toContain(`${caseLink()}\n`)
@@ -136,7 +193,10 @@ describe('every kind of notice reaches exactly its people, once, with its link',
       .expect(201)
     await rig.sender.runOnce()
     const mail = await received()
-    expect(mail.map((item) => item.to).sort()).toEqual(['engineer@cover.example.test', 'ops@plant.example.test'])
+    expect(mail.map((item) => item.to).sort()).toEqual([
+      'engineer@cover.example.test',
+      'ops@plant.example.test',
+    ])
     for (const item of mail) {
       expect(item.subject).toBe(`${caseNumber}: notice of destructive testing on 2026-11-30`)
       expect(item.text).toContain('> Section the fracture origin for metallography')
@@ -145,9 +205,11 @@ describe('every kind of notice reaches exactly its people, once, with its link',
   })
 
   it('a part nobody holds sends nothing', async () => {
-    const empty = await makeCase(db, (await makeOrganisation(db)), people.admin.id)
+    const empty = await makeCase(db, await makeOrganisation(db), people.admin.id)
     await db('outbox_messages').delete()
     expect(await queueAndDeliver({ kind: 'review_requested', caseId: empty.id })).toEqual([])
-    expect(await queueAndDeliver({ kind: 'report_issued', caseId: empty.id, reportNumber: 'R-1' })).toEqual([])
+    expect(
+      await queueAndDeliver({ kind: 'report_issued', caseId: empty.id, reportNumber: 'R-1' }),
+    ).toEqual([])
   })
 })

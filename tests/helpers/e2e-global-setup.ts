@@ -8,6 +8,9 @@ import { createApp } from '../../server/app'
 import { createDb } from '../../server/db/knex'
 import { dropAllTables, migrateLatest } from '../../server/db/migrations'
 import { createLocalStorage } from '../../server/storage/local-storage'
+import { startLocalSmtp } from '../../server/mail/local-smtp'
+import { createMailSender } from '../../server/mail/mail-sender'
+import { createSmtpTransport } from '../../server/mail/smtp-transport'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { testConfig } from './test-config'
 import { testDatabaseUrl } from './test-db'
@@ -27,10 +30,21 @@ export default async function setup(project: TestProject): Promise<() => Promise
   // uploads of the browser journeys go to a folder of their own, never the checkout's
   const uploadsDir = mkdtempSync(join(tmpdir(), 'fractolog-e2e-uploads-'))
   const storage = createLocalStorage(uploadsDir)
-  const config = testConfig({ uploadsDir })
+  // demo mode, as `npm start`: the "Mail sent" page reads the local SMTP server's mailbox
+  const config = testConfig({ uploadsDir, demoData: true })
   const { demoPassword: password, passwordCost } = config
   await seedDemoIfEmpty(db, { password, passwordCost, storage })
   const clientDir = resolve(import.meta.dirname, '../../dist')
+  const smtp = await startLocalSmtp(db)
+  const sender = createMailSender({
+    db,
+    transport: createSmtpTransport(smtp.url),
+    publicUrl: config.publicUrl,
+    from: config.mail.from,
+    policy: config.mail,
+    pollMs: 200,
+  })
+  sender.start()
   const app = createApp({ db, config, clientDir, storage })
   const server = await new Promise<Server>((done) => {
     const listening = app.listen(0, '127.0.0.1', () => done(listening))
@@ -40,6 +54,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
   project.provide('demoPassword', config.demoPassword)
   return async () => {
     await new Promise((done) => server.close(done))
+    await sender.stop()
+    await smtp.stop()
     await db.destroy()
     rmSync(uploadsDir, { recursive: true, force: true })
   }

@@ -21,8 +21,7 @@ export async function caseFacts(db: Knex, caseId: number): Promise<CaseFacts> {
   const row = (await db('cases')
     .where({ id: caseId })
     .first('id', 'number', 'title', 'organisationId', 'leadInvestigatorId', 'reviewerId')) as
-    | CaseFacts
-    | undefined
+    CaseFacts | undefined
   if (!row) throw new NotFound('No such case.')
   return row
 }

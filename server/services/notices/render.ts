@@ -14,7 +14,6 @@ const SUBJECT_LIMIT = 400
  * spaces, so a name or title can never start a header of its own.
  */
 export function oneLine(value: string, limit = SUBJECT_LIMIT): string {
-  // eslint-disable-next-line no-control-regex
   const flat = value.replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, ' ').trim()
   return flat.length <= limit ? flat : `${flat.slice(0, limit - 1)}…`
 }

@@ -24,8 +24,12 @@ describe('notice templates', () => {
       const mail = renderNotice({ kind, facts }, 'https://lab.example.test/fractolog/')
       const lead = kind === 'report_issued' ? 'R-2026-0007: ' : 'FL-2026-0042: '
       expect(mail.subject.startsWith(lead)).toBe(true)
-      expect(mail.text).toMatch(/: https:\/\/lab\.example\.test\/fractolog\/cases\/42(\/[a-z/]+)?\n/)
-      expect(mail.html).toMatch(/href="https:\/\/lab\.example\.test\/fractolog\/cases\/42(\/[a-z/]+)?"/)
+      expect(mail.text).toMatch(
+        /: https:\/\/lab\.example\.test\/fractolog\/cases\/42(\/[a-z/]+)?\n/,
+      )
+      expect(mail.html).toMatch(
+        /href="https:\/\/lab\.example\.test\/fractolog\/cases\/42(\/[a-z/]+)?"/,
+      )
       expect(mail.text.startsWith('Hello Ana Bcc: someone@example.test,\n')).toBe(true)
       expect(mail.html).not.toMatch(/<b>|<script>/)
       expect(mail.subject).not.toMatch(/[\r\n]/)

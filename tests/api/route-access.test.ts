@@ -258,6 +258,14 @@ const ROUTES: RouteCase[] = [
     body: {},
     expect: { admin: 400, others: 403 },
   },
+  // this app is not in demo mode: the local mailbox is not there even for administrators
+  { method: 'get', template: '/api/admin/mail', expect: { admin: 404, others: 403 } },
+  { method: 'get', template: '/api/admin/outbox', expect: { admin: 200, others: 403 } },
+  {
+    method: 'post',
+    template: '/api/admin/outbox/999999/resend',
+    expect: { admin: 404, others: 403 },
+  },
   { method: 'get', template: '/api/cases/:ownCase/specimens', expect: { others: 200 } },
   {
     method: 'get',

@@ -42,7 +42,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     publicUrl: config.publicUrl,
     from: config.mail.from,
     policy: config.mail,
-    pollMs: 200,
+    pollMs: 1_000,
   })
   sender.start()
   const app = createApp({ db, config, clientDir, storage })

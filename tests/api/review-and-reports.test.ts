@@ -61,9 +61,6 @@ const draft = (...extra: object[]) => ({
 const at = (path: string, id = caseId) => `/api/cases/${id}${path}`
 const statusOf = async (id = caseId) =>
   ((await db('cases').where({ id }).first('status')) as { status: CaseState }).status
-const versionOf = async (id = caseId) =>
-  (await sessions.lead.get(at('/findings', id)).expect(200)).body.data.version as number
-
 async function saveDraft(session: ApiSession, doc: object, id = caseId) {
   const version = (await session.get(at('/findings', id)).expect(200)).body.data.version as number
   const saved = await session.put(at('/findings', id), { doc, version })

@@ -9,7 +9,7 @@ import {
 } from '../../shared/schemas/reports'
 import { allowPart } from '../middleware/allow-part'
 import { allowOnCase, caseFileOf, childCaseLoader } from '../middleware/case-loader'
-import { currentUser } from '../middleware/require-auth'
+import { currentUser, requirePermission } from '../middleware/require-auth'
 import { parseOrThrow, validate } from '../middleware/validate'
 import type { CaseService } from '../services/cases'
 import type { ServiceContext } from '../services/context'
@@ -58,6 +58,10 @@ export function amendRoutes(db: Knex, reports: ReportService): Router {
 /** `/api/reports/:id…`: finds the revision's case, then the same loader and checks. */
 export function reportRoutes(db: Knex, cases: CaseService, reports: ReportService): Router {
   const router = Router()
+  // a client's: their organisation's; staff: every case's
+  router.get('/', requirePermission('cases.list'), async (req, res) => {
+    res.json({ data: await reports.readable(contextOf(req, db)) })
+  })
   router.use('/:id', childCaseLoader(db, cases, caseOfReport), allowOnCase('case.readReports'))
   router.get('/:id', async (req, res) => {
     const ctx = contextOf(req, db)

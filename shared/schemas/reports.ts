@@ -88,3 +88,6 @@ export function revisionLetter(index: number): string {
 }
 
 export const reportNumberOf = (caseNumber: string) => `${caseNumber}-R`
+
+/** A revision in the reading room's list, with the case it belongs to. */
+export type ReadableReport = ReportSummary & { caseNumber: string; caseTitle: string }

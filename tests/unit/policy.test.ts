@@ -95,7 +95,18 @@ function caseIn(status: CaseState, unled = false): CaseRef {
   }
 }
 
-type Row = Record<CaseAction, boolean>
+type ReviewAction =
+  | 'case.submitForReview'
+  | 'case.comment'
+  | 'case.decideReview'
+  | 'case.issue'
+  | 'case.amend'
+  | 'case.readReports'
+  | 'case.acknowledgeReport'
+  | 'case.askQuestion'
+  | 'case.answerQuestions'
+
+type Row = Record<Exclude<CaseAction, ReviewAction>, boolean>
 const row = (
   view: boolean,
   internal: boolean,
@@ -171,17 +182,6 @@ const CLOSED: Record<keyof typeof WHO, Row> = {
   ownClient: row(true, false, false, false),
   otherClient: row(false, false, false, false),
 }
-
-type ReviewAction =
-  | 'case.submitForReview'
-  | 'case.comment'
-  | 'case.decideReview'
-  | 'case.issue'
-  | 'case.amend'
-  | 'case.readReports'
-  | 'case.acknowledgeReport'
-  | 'case.askQuestion'
-  | 'case.answerQuestions'
 
 // Review and reports: the lead (or an administrator) submits, issues, amends and answers the
 // client; the assigned reviewer decides (four eyes is checked on top, against the draft's

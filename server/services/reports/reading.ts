@@ -1,5 +1,6 @@
 import type { FindingsDocument } from '../../../shared/findings/document'
 import type { LiveBlockSnapshots } from '../../../shared/findings/live-blocks'
+import { organisationScope } from '../../../shared/access/policy'
 import type { ReportView } from '../../../shared/schemas/reports'
 import { AppError, NotFound } from '../../errors'
 import type { FileStorage } from '../../storage/file-storage'
@@ -11,6 +12,7 @@ import { acknowledgementsOf, questionThread } from './questions'
 import {
   figureRowsOf,
   findReportRow,
+  readableReports,
   reportSummaries,
   rowHashOf,
   type FigureRow,
@@ -59,6 +61,10 @@ export function createReportReading(storage: FileStorage) {
     return reportSummaries(db, caseId, actor.id)
   }
 
+  function readable({ actor, db }: ServiceContext) {
+    return readableReports(db, actor.id, organisationScope(actor))
+  }
+
   async function get(
     ctx: ServiceContext,
     record: CaseRecord,
@@ -93,5 +99,5 @@ export function createReportReading(storage: FileStorage) {
     }
   }
 
-  return { list, get, figure }
+  return { list, readable, get, figure }
 }

@@ -81,13 +81,44 @@ export async function reportSummaries(
   caseId: number,
   viewerId: number,
 ): Promise<ReportSummary[]> {
-  const rows = (await db('reports as r')
+  return summariesOf(await summaryRows(db, viewerId).where('r.caseId', caseId))
+}
+
+/**
+ * Every revision the person may read (a client: their organisation's), newest first, with the
+ * case each belongs to: the reading room's list.
+ */
+export async function readableReports(
+  db: Knex,
+  viewerId: number,
+  organisationId: number | undefined,
+): Promise<(ReportSummary & { caseNumber: string; caseTitle: string })[]> {
+  const query = summaryRows(db, viewerId)
+    .join('cases', 'cases.id', 'r.caseId')
+    .select('cases.number as caseNumber', 'cases.title as caseTitle')
+    .limit(500)
+  if (organisationId !== undefined) query.where('cases.organisationId', organisationId)
+  const rows = (await query) as (SummaryRow & { caseNumber: string; caseTitle: string })[]
+  const byCase = new Map<number, typeof rows>()
+  for (const row of rows) byCase.set(row.caseId, [...(byCase.get(row.caseId) ?? []), row])
+  const titles = new Map(rows.map((row) => [row.id, row]))
+  return [...byCase.values()]
+    .flatMap((caseRows) => summariesOf(caseRows))
+    .map((summary) => ({
+      ...summary,
+      caseNumber: titles.get(summary.id)?.caseNumber ?? '',
+      caseTitle: titles.get(summary.id)?.caseTitle ?? '',
+    }))
+    .sort((a, b) => b.id - a.id)
+}
+
+function summaryRows(db: Knex, viewerId: number) {
+  return db('reports as r')
     .join('users as i', 'i.id', 'r.issuedBy')
     .join('users as a', 'a.id', 'r.approvedBy')
     .leftJoin('report_acknowledgements as k', (join) =>
       join.on('k.reportId', 'r.id').andOnVal('k.personId', viewerId),
     )
-    .where('r.caseId', caseId)
     .orderBy('r.id', 'desc')
     .select(
       'r.id',
@@ -102,7 +133,11 @@ export async function reportSummaries(
       'i.name as issuedByName',
       'a.name as approvedByName',
       'k.acknowledgedAt',
-    )) as SummaryRow[]
+    )
+}
+
+/** Summaries of one case's rows, newest first. */
+function summariesOf(rows: SummaryRow[]): ReportSummary[] {
   const revisionOf = new Map(rows.map((row) => [row.id, row.revision]))
   return rows.map((row, index) => {
     const next = index > 0 ? rows[index - 1] : undefined

@@ -414,6 +414,9 @@ describe('the client’s reading room', () => {
     const report = (await sessions.client.get(path).expect(200)).body.data
     expect(report.html).toContain('Summary')
     expect(report.rowSha256).toMatch(/^[0-9a-f]{64}$/)
+    const room = (await sessions.client.get('/api/reports').expect(200)).body.data
+    expect(room.map((r: { caseNumber: string }) => r.caseNumber)).toEqual([caseNumber])
+    expect((await sessions.otherClient.get('/api/reports').expect(200)).body.data).toEqual([])
     for (const request of [
       sessions.otherClient.get(at('/reports')),
       sessions.otherClient.get(path),

@@ -363,6 +363,8 @@ const ROUTES: RouteCase[] = [
     body: {},
     expect: { admin: 400, others: 403 },
   },
+  // the reading room's list: a client gets their organisation's revisions (none here)
+  { method: 'get', template: '/api/reports', expect: { others: 200 } },
   { method: 'get', template: '/api/reports/999999', expect: { others: 404 } },
   { method: 'get', template: '/api/reports/999999/figures/f1', expect: { others: 404 } },
   { method: 'post', template: '/api/reports/999999/acknowledge', expect: { others: 404 } },

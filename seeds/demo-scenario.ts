@@ -1,4 +1,6 @@
 import type { CaseCreate } from '../shared/schemas/cases'
+import type { SectionKey } from '../shared/findings/sections'
+import type { ReviewCommentCreate } from '../shared/schemas/review'
 import type { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { Role } from '../shared/schemas/roles'
 import type { CaseState } from '../shared/workflow/case-states'
@@ -60,6 +62,22 @@ export const PEOPLE: DemoPerson[] = [
 
 type PersonKey = 'tomas' | 'priya' | 'maren' | 'anwen'
 
+type Draft = Partial<Record<SectionKey, string[]>>
+
+/** A demo case's way from a draft through review to issued revisions (seeds/demo-reports.ts). */
+export interface DemoReport {
+  firstDraft: Draft
+  comment: ReviewCommentCreate
+  commentReply: string
+  revisionsReason: string
+  revisedDraft: Draft
+  /** the client acknowledges revision A */
+  acknowledged?: boolean
+  question?: { ask: string; answer: string }
+  /** revision B: the reason and the amended text */
+  amendment?: { reason: string; draft: Draft }
+}
+
 /** A demo case: its fields, who is on it, and dates as days relative to the day of seeding. */
 export interface DemoCase extends Omit<
   Partial<CaseCreate>,
@@ -87,6 +105,8 @@ export interface DemoCase extends Omit<
   dueInDays: number
   /** reached through the real transitions, one step at a time */
   status: Extract<CaseState, 'intake' | 'examination' | 'drafting'>
+  /** written, reviewed and issued through the real steps (after reaching drafting) */
+  report?: DemoReport
   /** the part's life before it failed; `daysAgo` relative to the day of seeding */
   history?: (Omit<Partial<ServiceEventCreate>, 'occurredOn'> &
     Pick<ServiceEventCreate, 'kind' | 'description'> & { daysAgo: number })[]
@@ -299,5 +319,134 @@ export const CASES: DemoCase[] = [
     ],
     mechanisms: [{ mechanism: 'fatigue_high_cycle', primary: true }],
     rootCause: 'design',
+  },
+  {
+    organisation: 'cranes',
+    title: 'Fractured slewing ring bolt, mobile crane 7',
+    component: 'Slewing ring bolt M24',
+    partNumber: 'TC-SR-2410',
+    material: 'ISO 898-1 property class 10.9',
+    heatOrLot: 'Lot 7741-B',
+    clientReference: 'TC-NCR-2150',
+    contactName: 'Dale Forsyth',
+    contactEmail: 'client@demo.test',
+    turnaround: 'standard',
+    safetyCritical: true,
+    lead: 'tomas',
+    lab: 'priya',
+    reviewer: 'maren',
+    failedDaysAgo: 210,
+    receivedDaysAgo: 200,
+    dueInDays: -120,
+    status: 'drafting',
+    mechanisms: [{ mechanism: 'fatigue_high_cycle', primary: true }],
+    rootCause: 'assembly',
+    history: [
+      {
+        kind: 'installation',
+        daysAgo: 2600,
+        description: 'Slewing ring fitted with 48 bolts tightened by torque wrench.',
+        clientVisible: true,
+      },
+      {
+        kind: 'failure',
+        daysAgo: 210,
+        description: 'Bolt head found on the deck during a daily check; two neighbours loose.',
+        clientVisible: true,
+      },
+    ],
+    report: {
+      firstDraft: {
+        summary: ['The bolt failed by fatigue that started at the first engaged thread.'],
+        background: ['The bolt held the slewing ring of mobile crane 7 for about seven years.'],
+        visual: ['The fracture face is flat with beach marks over about 80 % of the section.'],
+        fractography: ['Ratchet marks at the thread root show several origins.'],
+        discussion: ['Two neighbouring bolts were loose, so the clamp load had been lost.'],
+        conclusions: ['The bolt failed by fatigue because the joint lost its preload.'],
+        recommendations: ['Replace all 48 bolts and tighten them by a controlled method.'],
+      },
+      comment: {
+        sectionKey: 'conclusions',
+        quote: 'because the joint lost its preload',
+        body: 'State what the loss of preload rests on: the loose neighbours, or a measurement?',
+      },
+      commentReply: 'Added the residual torque readings of the neighbouring bolts.',
+      revisionsReason: 'The conclusion on preload needs the evidence it rests on.',
+      revisedDraft: {
+        summary: ['The bolt failed by fatigue that started at the first engaged thread.'],
+        background: ['The bolt held the slewing ring of mobile crane 7 for about seven years.'],
+        visual: ['The fracture face is flat with beach marks over about 80 % of the section.'],
+        fractography: ['Ratchet marks at the thread root show several origins.'],
+        discussion: [
+          'Two neighbouring bolts were loose: their residual torque was below 20 % of the value specified for assembly, so the clamp load had been lost.',
+        ],
+        conclusions: [
+          'The bolt failed by fatigue because the joint lost its preload, as the residual torque of its neighbours shows.',
+        ],
+        recommendations: ['Replace all 48 bolts and tighten them by a controlled method.'],
+      },
+      acknowledged: true,
+      question: {
+        ask: 'Should we check the slewing ring bolts on our other two cranes of the same type?',
+        answer:
+          'Yes. Check the residual torque of every bolt on both cranes; replace any bolt found loose rather than re-tightening it.',
+      },
+    },
+  },
+  {
+    organisation: 'fittings',
+    title: 'Cracked thermowell on steam header',
+    component: 'Thermowell TW-3',
+    partNumber: 'QF-TW-316-250',
+    material: 'ASTM A182 F316 forging',
+    clientReference: 'QPF-Q-7650',
+    contactName: 'Yuki Brennagh',
+    contactEmail: 'client2@demo.test',
+    turnaround: 'expedited',
+    lead: 'tomas',
+    lab: 'priya',
+    reviewer: 'anwen',
+    failedDaysAgo: 260,
+    receivedDaysAgo: 251,
+    dueInDays: -200,
+    status: 'drafting',
+    mechanisms: [{ mechanism: 'fatigue_high_cycle', primary: true }],
+    rootCause: 'design',
+    report: {
+      firstDraft: {
+        summary: ['The thermowell cracked by flow-induced vibration fatigue at its root.'],
+        background: ['The thermowell sat in the main steam header at 340 °C.'],
+        fractography: ['Beach marks run from the downstream side of the root fillet.'],
+        conclusions: ['The thermowell was too long for the steam velocity in the header.'],
+        recommendations: ['Fit a shorter thermowell checked for wake frequency.'],
+      },
+      comment: {
+        sectionKey: 'background',
+        quote: 'at 340 °C',
+        body: 'Give the steam velocity as well; the conclusion depends on it.',
+      },
+      commentReply: 'Velocity from the plant’s flow records added.',
+      revisionsReason: 'The background must give the steam velocity the conclusion depends on.',
+      revisedDraft: {
+        summary: ['The thermowell cracked by flow-induced vibration fatigue at its root.'],
+        background: ['The thermowell sat in the main steam header at 340 °C and 38 m/s.'],
+        fractography: ['Beach marks run from the downstream side of the root fillet.'],
+        conclusions: ['The thermowell was too long for the steam velocity in the header.'],
+        recommendations: ['Fit a shorter thermowell checked for wake frequency.'],
+      },
+      acknowledged: true,
+      amendment: {
+        reason: 'The client corrected the steam temperature: 365 °C, not 340 °C.',
+        draft: {
+          summary: ['The thermowell cracked by flow-induced vibration fatigue at its root.'],
+          background: ['The thermowell sat in the main steam header at 365 °C and 38 m/s.'],
+          fractography: ['Beach marks run from the downstream side of the root fillet.'],
+          conclusions: [
+            'The thermowell was too long for the steam velocity in the header; the corrected temperature does not change this.',
+          ],
+          recommendations: ['Fit a shorter thermowell checked for wake frequency.'],
+        },
+      },
+    },
   },
 ]

@@ -8,6 +8,7 @@ import { createServiceEventService } from '../server/services/service-events'
 import { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { FileStorage } from '../server/storage/file-storage'
 import { seedDemoTensile } from './demo-tensile'
+import { seedDemoReport } from './demo-reports'
 import { CASES, DEMO_LAB_NAME, ORGANISATIONS, PEOPLE, type DemoCase } from './demo-scenario'
 
 export { DEMO_LAB_NAME } from './demo-scenario'
@@ -26,6 +27,9 @@ const WAY_TO: Record<DemoCase['status'], CaseState[]> = {
   examination: ['examination'],
   drafting: ['examination', 'drafting'],
 }
+
+/** Who reads each organisation's reports in the demo. */
+const CLIENT_OF: Record<DemoCase['organisation'], string> = { cranes: 'dale', fittings: 'yuki' }
 
 function daysFrom(today: Date, days: number): string {
   return new Date(today.getTime() + days * 86_400_000).toISOString().slice(0, 10)
@@ -64,6 +68,7 @@ function caseInput(
     status: _s,
     history: _h,
     tensileTested: _t,
+    report: _r,
     ...rest
   } = demo
   const { failedDaysAgo, receivedDaysAgo, dueInDays, ...fields } = rest
@@ -118,6 +123,14 @@ async function seedCases(
     }
     if (demo.tensileTested && demo.lab)
       await seedDemoTensile(trx, created.id, actors.get(demo.lab)!, storage, daysFrom(today, -20))
+    if (demo.report && demo.reviewer) {
+      const people = {
+        lead,
+        reviewer: actors.get(demo.reviewer)!,
+        client: actors.get(CLIENT_OF[demo.organisation])!,
+      }
+      await seedDemoReport(trx, created.id, demo.report, people, storage)
+    }
   }
 }
 

@@ -35,6 +35,10 @@ import { createLocalStorage } from './storage/local-storage'
 import { findingsBodyParser, findingsRoutes } from './routes/findings'
 import { createFindingsService } from './services/findings'
 import { hardnessRoutes } from './routes/hardness'
+import { reviewRoutes } from './routes/review'
+import { amendRoutes, caseReportListRoutes, issueRoutes, reportRoutes } from './routes/reports'
+import { createReviewService } from './services/review'
+import { createReportService } from './services/reports'
 
 export interface AppDeps {
   db: Db
@@ -100,16 +104,22 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const evidence = createEvidenceServices()
   const photos = createPhotoService({ storage: deps.storage })
   const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
+  const reports = createReportService({ storage: deps.storage, photos })
   const children = {
     photos: casePhotoRoutes(db, photos, incomingDir),
     findings: findingsRoutes(db, createFindingsService()),
     hardness: hardnessRoutes(db),
+    review: reviewRoutes(db, createReviewService()),
+    reports: caseReportListRoutes(db, reports),
+    issue: issueRoutes(db, reports),
+    amend: amendRoutes(db, reports),
   }
   const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
   api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, tests, children))
   api.use('/specifications', ...signedIn, specificationRoutes(db))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/photos', ...signedIn, photoRoutes(db, cases, photos))
+  api.use('/reports', ...signedIn, reportRoutes(db, cases, reports))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use('/admin', ...signedIn, adminMailRoutes(db, { demo: config.demoData }))
   api.use(apiNotFound)

@@ -60,6 +60,24 @@ export type CaseAction =
   | 'case.readFindings'
   /** write the findings draft */
   | 'case.editFindings'
+  /** submit the draft for review (or resubmit after revisions) */
+  | 'case.submitForReview'
+  /** write and resolve review comments */
+  | 'case.comment'
+  /** approve the draft or ask for revisions (the assigned reviewer; four eyes checked on top) */
+  | 'case.decideReview'
+  /** issue the approved draft as the next revision of the report */
+  | 'case.issue'
+  /** start an amendment of an issued report, with its reason */
+  | 'case.amend'
+  /** read the case's issued report revisions */
+  | 'case.readReports'
+  /** acknowledge receipt of an issued report (a client of the case) */
+  | 'case.acknowledgeReport'
+  /** ask a question on an issued report (a client of the case) */
+  | 'case.askQuestion'
+  /** answer the client's questions on a report */
+  | 'case.answerQuestions'
 
 export type Action = GlobalAction | CaseAction
 
@@ -93,6 +111,15 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.confirmTests': ['admin', 'lab'],
   'case.readFindings': STAFF_ROLES,
   'case.editFindings': ['admin', 'investigator'],
+  'case.submitForReview': ['admin', 'investigator'],
+  'case.comment': ['admin', 'investigator', 'reviewer'],
+  'case.decideReview': ['reviewer'],
+  'case.issue': ['admin', 'investigator'],
+  'case.amend': ['admin', 'investigator'],
+  'case.readReports': [...STAFF_ROLES, 'client'],
+  'case.acknowledgeReport': ['client'],
+  'case.askQuestion': ['client'],
+  'case.answerQuestions': ['admin', 'investigator'],
 }
 
 /** The person's parts in a case: lead, co-investigator, lab technician, reviewer. */
@@ -119,6 +146,56 @@ function findingsEditor(actor: Actor, caseRef: CaseRef): boolean {
   return (parts.lead || parts.coInvestigator) && FINDINGS_EDITABLE_STATES.includes(caseRef.status)
 }
 
+/** What a client of the case's organisation may do: see it, read, acknowledge and ask. */
+const CLIENT_ACTIONS: readonly CaseAction[] = [
+  'case.view',
+  'case.readReports',
+  'case.acknowledgeReport',
+  'case.askQuestion',
+]
+
+/** States in which the review conversation is open. */
+export const REVIEW_COMMENT_STATES: readonly CaseState[] = [
+  'drafting',
+  'in_review',
+  'revisions_requested',
+  'approved',
+]
+
+/**
+ * Review, issue and reports: the lead submits, issues, amends and answers (or an administrator);
+ * the assigned reviewer decides; the people on the case comment. Amending and answering go on
+ * after a case is closed. `undefined` for actions this rule does not cover.
+ */
+function reviewRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean | undefined {
+  const parts = partsIn(actor, caseRef)
+  const leads = parts.lead || holds(actor, 'admin')
+  const state = caseRef.status
+  switch (action) {
+    case 'case.readReports':
+      return true
+    case 'case.submitForReview':
+      return leads && (state === 'drafting' || state === 'revisions_requested')
+    case 'case.comment':
+      return (
+        (leads || parts.coInvestigator || parts.reviewer) && REVIEW_COMMENT_STATES.includes(state)
+      )
+    case 'case.decideReview':
+      return parts.reviewer && state === 'in_review'
+    case 'case.issue':
+      return leads && state === 'approved'
+    case 'case.amend':
+      return leads && (state === 'issued' || state === 'closed')
+    case 'case.answerQuestions':
+      return leads
+    case 'case.acknowledgeReport':
+    case 'case.askQuestion':
+      return false
+    default:
+      return undefined
+  }
+}
+
 /**
  * The lead investigator (or, while a case has no lead, any investigator, so one can take it on)
  * and administrators keep the record; co-investigators may also move it along. Nothing changes
@@ -127,12 +204,14 @@ function findingsEditor(actor: Actor, caseRef: CaseRef): boolean {
 function caseRule(actor: Actor, action: CaseAction, caseRef: CaseRef): boolean {
   if (!isStaff(actor)) {
     return (
-      action === 'case.view' &&
+      CLIENT_ACTIONS.includes(action) &&
       actor.organisationId !== null &&
       actor.organisationId === caseRef.organisationId
     )
   }
   if (action === 'case.view' || action === 'case.viewInternal') return true
+  const review = reviewRule(actor, action, caseRef)
+  if (review !== undefined) return review
   if (action === 'case.viewActivity' || action === 'case.readFindings') return true
   if (action === 'case.editFindings') return findingsEditor(actor, caseRef)
   if (caseRef.status === 'closed') return false
@@ -177,6 +256,15 @@ const CASE_ACTIONS: Record<CaseAction, true> = {
   'case.confirmTests': true,
   'case.readFindings': true,
   'case.editFindings': true,
+  'case.submitForReview': true,
+  'case.comment': true,
+  'case.decideReview': true,
+  'case.issue': true,
+  'case.amend': true,
+  'case.readReports': true,
+  'case.acknowledgeReport': true,
+  'case.askQuestion': true,
+  'case.answerQuestions': true,
 }
 
 /** The organisation a person's lists are limited to: none for staff, their own for a client. */

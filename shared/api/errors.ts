@@ -10,6 +10,8 @@ export const ERROR_STATUS = {
   forbidden: 403,
   password_change_required: 403,
   csrf_invalid: 403,
+  /** the person wrote (or leads, or co-investigates) the draft they try to approve */
+  four_eyes: 403,
   not_found: 404,
   /** a duplicate of something that must be unique (an e-mail address, a number) */
   conflict: 409,
@@ -21,6 +23,8 @@ export const ERROR_STATUS = {
   notice_required: 409,
   /** the case or item is under a legal hold: no sectioning, transfer or disposal */
   legal_hold: 409,
+  /** issue asked for a draft that is not approved, or changed since it was approved */
+  not_approved: 409,
   payload_too_large: 413,
   unsupported_file_type: 415,
   /** an image with more pixels than the server decodes (a decompression bomb, or simply huge) */

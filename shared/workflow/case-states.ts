@@ -25,9 +25,9 @@ export const CASE_STATE_LABELS: Record<CaseState, string> = {
 
 /**
  * How a transition is made: `direct` ones are a plain status change by the listed roles; the
- * others belong to the review and issue actions and are refused as plain status changes.
+ * others belong to the review, issue and amend actions and are refused as plain status changes.
  */
-export type TransitionRoute = 'direct' | 'review' | 'issue'
+export type TransitionRoute = 'direct' | 'review' | 'issue' | 'amend'
 
 export interface Transition {
   from: CaseState
@@ -47,7 +47,9 @@ export const CASE_TRANSITIONS: readonly Transition[] = [
   { from: 'in_review', to: 'approved', roles: ['reviewer'], route: 'review' },
   { from: 'approved', to: 'issued', roles: LEADS, route: 'issue' },
   { from: 'issued', to: 'closed', roles: LEADS, route: 'direct' },
-  { from: 'issued', to: 'drafting', roles: LEADS, route: 'direct' },
+  // an amendment, with its reason, is the only way back to a draft (ISO/IEC 17025 7.8.8)
+  { from: 'issued', to: 'drafting', roles: LEADS, route: 'amend' },
+  { from: 'closed', to: 'drafting', roles: LEADS, route: 'amend' },
 ]
 
 export function findTransition(from: CaseState, to: CaseState): Transition | undefined {

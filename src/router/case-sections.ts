@@ -57,7 +57,20 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     component: () => import('@/views/case/CaseMechanicalTestsView.vue'),
   },
   { name: 'case-findings', path: 'findings', label: 'Findings', roles: STAFF, component: notYet },
-  { name: 'case-review', path: 'review', label: 'Review', roles: STAFF, component: notYet },
+  {
+    name: 'case-review',
+    path: 'review',
+    label: 'Review',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseReviewView.vue'),
+  },
+  {
+    name: 'case-reports',
+    path: 'reports',
+    label: 'Reports',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseReportsView.vue'),
+  },
   {
     name: 'case-activity',
     path: 'activity',

@@ -66,6 +66,19 @@ export const router = createRouter({
       })),
     },
     {
+      path: '/reports',
+      name: 'reports',
+      component: () => import('@/views/ReadingRoomView.vue'),
+      meta: { title: 'Reports' },
+    },
+    {
+      path: '/reports/:reportId(\\d+)',
+      name: 'report',
+      component: () => import('@/views/ReportReaderView.vue'),
+      props: (route) => ({ reportId: Number(route.params.reportId) }),
+      meta: { title: 'Report' },
+    },
+    {
       path: '/admin/people',
       name: 'people',
       component: () => import('@/views/PeopleView.vue'),

@@ -313,6 +313,82 @@ const ROUTES: RouteCase[] = [
     template: '/api/cases/:ownCase/tensile-records/999999/file',
     expect: { client: 403, others: 404 },
   },
+  // review: staff only (a client learns nothing of it); these cases have no lead and no reviewer,
+  // so only an administrator gets as far as the state check (409: a case in intake)
+  { method: 'get', template: '/api/cases/:ownCase/review', expect: { client: 404, others: 200 } },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/review/submit',
+    expect: { admin: 409, client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/review/request-revisions',
+    body: {},
+    expect: { client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/review/approve',
+    expect: { client: 404, others: 403 },
+  },
+  {
+    method: 'get',
+    template: '/api/cases/:ownCase/review/comments',
+    expect: { client: 404, others: 200 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/review/comments',
+    body: {},
+    expect: { client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/review/comments/999999/resolve',
+    expect: { client: 404, others: 403 },
+  },
+  // issued reports: every staff member and the case's own client read them
+  { method: 'get', template: '/api/cases/:ownCase/reports', expect: { others: 200 } },
+  {
+    method: 'get',
+    template: '/api/cases/:otherCase/reports',
+    expect: { client: 404, others: 200 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/issue',
+    expect: { admin: 409, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:otherCase/issue',
+    expect: { admin: 409, client: 404, others: 403 },
+  },
+  {
+    method: 'post',
+    template: '/api/cases/:ownCase/amend',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
+  // the reading room's list: a client gets their organisation's revisions (none here)
+  { method: 'get', template: '/api/reports', expect: { others: 200 } },
+  { method: 'get', template: '/api/reports/999999', expect: { others: 404 } },
+  { method: 'get', template: '/api/reports/999999/figures/f1', expect: { others: 404 } },
+  { method: 'post', template: '/api/reports/999999/acknowledge', expect: { others: 404 } },
+  { method: 'get', template: '/api/reports/999999/questions', expect: { others: 404 } },
+  {
+    method: 'post',
+    template: '/api/reports/999999/questions',
+    body: {},
+    expect: { others: 404 },
+  },
+  {
+    method: 'post',
+    template: '/api/reports/999999/questions/1/answers',
+    body: {},
+    expect: { others: 404 },
+  },
 ]
 
 const pathOf = (route: RouteCase) =>

@@ -10,7 +10,18 @@ const browser = useBrowser()
  */
 
 type Screen =
-  'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations' | 'outbox' | 'mail sent'
+  | 'home'
+  | 'cases'
+  | 'case'
+  | 'new case'
+  | 'people'
+  | 'organisations'
+  | 'review'
+  | 'case reports'
+  | 'reading room'
+  | 'report'
+  | 'outbox'
+  | 'mail sent'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
@@ -26,16 +37,32 @@ const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
       'mail sent',
     ],
   },
-  { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
+  {
+    email: 'investigator@demo.test',
+    screens: ['home', 'cases', 'case', 'new case', 'case reports'],
+  },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
-  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case'] },
-  { email: 'client@demo.test', screens: ['home', 'cases', 'case'] },
+  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case', 'review'] },
+  { email: 'client@demo.test', screens: ['home', 'cases', 'case', 'reading room', 'report'] },
 ]
+
+/** A section of the demo's issued case, with its review history and report. */
+async function openIssuedCase(section: 'review' | 'reports'): Promise<void> {
+  const page = browser().page
+  await page.goto(`${inject('baseUrl')}/cases?q=${encodeURIComponent('slewing ring bolt')}`)
+  await page.getByTestId('case-table').getByText('Fractured slewing ring bolt').click()
+  await page.getByTestId('case-page').waitFor()
+  await page.getByTestId(`section-case-${section}`).click()
+  await page.getByTestId(`case-${section}`).waitFor()
+}
 
 async function openScreen(screen: Screen): Promise<void> {
   const page = browser().page
   const base = inject('baseUrl')
-  const addresses: Record<Exclude<Screen, 'case'>, string> = {
+  const addresses: Record<
+    Exclude<Screen, 'case' | 'review' | 'case reports' | 'report'>,
+    string
+  > = {
     home: '/',
     cases: '/cases',
     'new case': '/cases/new',
@@ -43,8 +70,15 @@ async function openScreen(screen: Screen): Promise<void> {
     organisations: '/admin/organisations',
     outbox: '/admin/outbox',
     'mail sent': '/admin/mail',
+    'reading room': '/reports',
   }
-  if (screen === 'case') {
+  if (screen === 'review') await openIssuedCase('review')
+  else if (screen === 'case reports') await openIssuedCase('reports')
+  else if (screen === 'report') {
+    await openScreen('reading room')
+    await page.getByTestId('report-list').locator('tbody a').first().click()
+    await page.getByTestId('report-reader').waitFor()
+  } else if (screen === 'case') {
     await openScreen('cases')
     await page.getByTestId('case-table').locator('tbody a').first().click()
     await page.getByTestId('case-page').waitFor()

@@ -25,13 +25,25 @@ describe('the case state table', () => {
         'approved>issued',
         'issued>closed',
         'issued>drafting',
+        'closed>drafting',
       ].sort(),
     )
   })
 
   it('lets investigators make the plain steps', () => {
     expect(checkTransition('intake', 'examination', ['investigator']).allowed).toBe(true)
-    expect(checkTransition('issued', 'drafting', ['investigator']).allowed).toBe(true)
+    expect(checkTransition('issued', 'closed', ['investigator']).allowed).toBe(true)
+  })
+
+  it('leaves an issued or closed case only through an amendment (ISO/IEC 17025 7.8.8)', () => {
+    for (const from of ['issued', 'closed'] as const) {
+      expect(checkTransition(from, 'drafting', ['admin'])).toEqual({
+        allowed: false,
+        reason: 'route',
+      })
+      expect(checkTransition(from, 'drafting', ['investigator'], 'amend').allowed).toBe(true)
+      expect(checkTransition(from, 'drafting', ['reviewer'], 'amend').allowed).toBe(false)
+    }
   })
 
   it('refuses a step that is not in the table', () => {
@@ -63,7 +75,8 @@ describe('the case state table', () => {
 
   it('offers only the plain next steps a role may take', () => {
     expect(nextStates('intake', ['investigator'])).toEqual(['examination'])
-    expect(nextStates('issued', ['admin'])).toEqual(['closed', 'drafting'])
+    expect(nextStates('issued', ['admin'])).toEqual(['closed'])
+    expect(nextStates('closed', ['admin'])).toEqual([])
     expect(nextStates('drafting', ['investigator'])).toEqual([])
     expect(nextStates('intake', ['client'])).toEqual([])
   })

@@ -96,7 +96,18 @@ function caseIn(status: CaseState, unled = false): CaseRef {
   }
 }
 
-type Row = Record<CaseAction, boolean>
+type ReviewAction =
+  | 'case.submitForReview'
+  | 'case.comment'
+  | 'case.decideReview'
+  | 'case.issue'
+  | 'case.amend'
+  | 'case.readReports'
+  | 'case.acknowledgeReport'
+  | 'case.askQuestion'
+  | 'case.answerQuestions'
+
+type Row = Record<Exclude<CaseAction, ReviewAction>, boolean>
 const row = (
   view: boolean,
   internal: boolean,
@@ -173,13 +184,35 @@ const CLOSED: Record<keyof typeof WHO, Row> = {
   otherClient: row(false, false, false, false),
 }
 
+// Review and reports: the lead (or an administrator) submits, issues, amends and answers the
+// client; the assigned reviewer decides (four eyes is checked on top, against the draft's
+// authors); the people on the case comment while the review is open; every staff member and the
+// case's own client read the issued revisions; only that client acknowledges and asks.
+function reviewRow(who: string, status: CaseState): Record<ReviewAction, boolean> {
+  const leads = who === 'lead' || who === 'admin'
+  const talks = leads || who === 'coInvestigator' || who === 'reviewer'
+  const client = who === 'ownClient'
+  return {
+    'case.submitForReview': leads && ['drafting', 'revisions_requested'].includes(status),
+    'case.comment':
+      talks && ['drafting', 'in_review', 'revisions_requested', 'approved'].includes(status),
+    'case.decideReview': who === 'reviewer' && status === 'in_review',
+    'case.issue': leads && status === 'approved',
+    'case.amend': leads && ['issued', 'closed'].includes(status),
+    'case.readReports': who !== 'otherClient',
+    'case.acknowledgeReport': client,
+    'case.askQuestion': client,
+    'case.answerQuestions': leads,
+  }
+}
+
 describe('access policy: person × part × case action × state', () => {
   for (const status of CASE_STATES) {
     const table = status === 'closed' ? CLOSED : OPEN
     for (const [who, row] of Object.entries(table)) {
       const { actor: person, unled } = WHO[who]!
       const writes = FINDINGS_WRITERS.includes(who) && FINDINGS_OPEN_IN.includes(status)
-      const expected = { ...row, 'case.editFindings': writes }
+      const expected = { ...row, 'case.editFindings': writes, ...reviewRow(who, status) }
       it(`${who} on a case in ${status}`, () => {
         const answers = Object.fromEntries(
           (Object.keys(expected) as CaseAction[]).map((action) => [
@@ -195,6 +228,12 @@ describe('access policy: person × part × case action × state', () => {
   it('combines roles: a reviewer who is also an investigator may open cases', () => {
     const both: Actor = { id: 2, roles: ['reviewer', 'investigator'], organisationId: null }
     expect(can(both, 'case.create')).toBe(true)
+  })
+
+  it('lets a person holding investigator and reviewer roles decide only as the assigned reviewer', () => {
+    const both: Actor = { id: 13, roles: ['reviewer', 'investigator'], organisationId: null }
+    expect(can(both, 'case.decideReview', caseIn('in_review'))).toBe(true)
+    expect(can({ ...both, id: 10 }, 'case.decideReview', caseIn('in_review'))).toBe(false)
   })
 
   it('lets a lab technician not assigned to the case neither record nor confirm its tests', () => {

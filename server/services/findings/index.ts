@@ -14,6 +14,7 @@ import type { ServiceContext } from '../context'
 import { checkReferences, withdrawnObservations } from './document-references'
 import { documentOf, findFindings, findingsAuthors, recordAuthor } from './findings-rows'
 import { readLiveBlocks } from './live-blocks'
+import { withdrawCurrentApproval } from '../review/approvals'
 
 /** One "findings edited" entry per person per hour of editing, not one per autosave. */
 const EDITING_SESSION_MS = 60 * 60 * 1000
@@ -61,6 +62,7 @@ export function createFindingsService(options: { clock?: () => Date } = {}) {
     await trx('cases')
       .where({ id: record.id })
       .update({ status: 'drafting', version: record.version + 1, updatedAt: trx.fn.now() })
+    await withdrawCurrentApproval(trx, record.id, actorId)
     await recordAudit(trx, {
       caseId: record.id,
       actorId,

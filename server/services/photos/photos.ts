@@ -169,7 +169,7 @@ export async function caseOfPhoto(db: Knex, photoId: number): Promise<number | u
 /** Which of these storage keys a record names (attachments and photos), for the start-up sweep. */
 export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<string>> {
   if (keys.length === 0) return new Set()
-  const [attachments, records, photos] = (await Promise.all([
+  const [attachments, records, photos, figures] = (await Promise.all([
     db('attachments').whereIn('storageKey', keys).select('storageKey'),
     db('tensileRecords').whereIn('storageKey', keys).select('storageKey'),
     db('photos')
@@ -177,14 +177,17 @@ export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<st
       .orWhereIn('displayKey', keys)
       .orWhereIn('thumbnailKey', keys)
       .select('originalKey', 'displayKey', 'thumbnailKey'),
+    db('reportFigures').whereIn('storageKey', keys).select('storageKey'),
   ])) as [
     { storageKey: string }[],
     { storageKey: string }[],
     { originalKey: string; displayKey: string; thumbnailKey: string }[],
+    { storageKey: string }[],
   ]
   return new Set([
     ...attachments.map((row) => row.storageKey),
     ...records.map((row) => row.storageKey),
     ...photos.flatMap((row) => [row.originalKey, row.displayKey, row.thumbnailKey]),
+    ...figures.map((row) => row.storageKey),
   ])
 }

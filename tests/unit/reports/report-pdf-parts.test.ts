@@ -1,7 +1,14 @@
 import { readFileSync } from 'node:fs'
 import * as fontkit from 'fontkit'
 import { describe, expect, it } from 'vitest'
-import { FONT_FAMILIES, fontFor, fontRuns } from '../../../server/services/reports/pdf/fonts'
+import { createRequire } from 'node:module'
+import {
+  FONT_FAMILIES,
+  fontFor,
+  fontRuns,
+  loadFontFiles,
+} from '../../../server/services/reports/pdf/fonts'
+import { sfntFromWoff } from '../../../server/services/reports/pdf/woff'
 import { headerRowCount, spannedGrid } from '../../../server/services/reports/pdf/table-grid'
 
 describe('the glyph-by-glyph font fallback', () => {
@@ -18,7 +25,8 @@ describe('the glyph-by-glyph font fallback', () => {
   it('only ever picks a font that has the glyph, for every symbol a report prints', () => {
     for (const char of 'σεµ°±≤≥√ΔÅ–—‘’“”…×·²³') {
       const name = fontFor(char.codePointAt(0) as number)
-      const font = fontkit.create(readFileSync(FONT_FAMILIES[name].normal)) as fontkit.Font
+      const bytes = loadFontFiles().get(FONT_FAMILIES[name].normal) as Buffer
+      const font = fontkit.create(bytes) as fontkit.Font
       expect(font.hasGlyphForCodePoint(char.codePointAt(0) as number), char).toBe(true)
     }
   })
@@ -32,6 +40,27 @@ describe('the glyph-by-glyph font fallback', () => {
       { text: '≤', font: 'Symbols' },
       { text: ' 350 MPa', font: 'Text' },
     ])
+  })
+})
+
+describe('WOFF fonts unpacked for the PDF', () => {
+  it('gives the same font as fontkit reads from the WOFF itself (W3C WOFF 1.0)', () => {
+    const woff = readFileSync(
+      createRequire(import.meta.url).resolve(
+        '@fontsource/dejavu-sans/files/dejavu-sans-latin-400-normal.woff',
+      ),
+    )
+    const sfnt = sfntFromWoff(woff)
+    expect(sfnt.readUInt32BE(0)).toBe(0x00010000) // a TrueType outline font
+    const fromWoff = fontkit.create(woff) as fontkit.Font
+    const fromSfnt = fontkit.create(sfnt) as fontkit.Font
+    expect(fromSfnt.numGlyphs).toBe(fromWoff.numGlyphs)
+    expect(fromSfnt.postscriptName).toBe(fromWoff.postscriptName)
+    const sigma = 'σ'.codePointAt(0) as number
+    expect(fromSfnt.glyphForCodePoint(sigma).advanceWidth).toBe(
+      fromWoff.glyphForCodePoint(sigma).advanceWidth,
+    )
+    expect(() => sfntFromWoff(Buffer.from('not a font at all, not at all'))).toThrow()
   })
 })
 

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { dirname, join } from 'node:path'
 import * as fontkit from 'fontkit'
+import { sfntFromWoff } from './woff'
 
 /*
  * Fonts ship with the application as npm packages (both under free licences: Merriweather Sans
@@ -13,7 +14,8 @@ import * as fontkit from 'fontkit'
 const require = createRequire(import.meta.url)
 const folderOf = (pkg: string) => join(dirname(require.resolve(`${pkg}/LICENSE`)), 'files')
 
-type Style = 'normal' | 'bold' | 'italics' | 'bolditalics'
+const STYLES = ['normal', 'bold', 'italics', 'bolditalics'] as const
+type Style = (typeof STYLES)[number]
 const WEIGHTS: Record<Style, string> = {
   normal: '400-normal',
   bold: '700-normal',
@@ -21,37 +23,52 @@ const WEIGHTS: Record<Style, string> = {
   bolditalics: '700-italic',
 }
 
-function family(pkg: string, prefix: string): Record<Style, string> {
-  const folder = folderOf(pkg)
-  const files = Object.entries(WEIGHTS).map(([style, weight]) => [
-    style,
-    join(folder, `${prefix}-${weight}.woff`),
-  ])
-  return Object.fromEntries(files) as Record<Style, string>
-}
-
-/** In the order a character looks for its glyph. */
-export const FONT_FAMILIES = {
-  Text: family('@fontsource/merriweather-sans', 'merriweather-sans-latin'),
-  TextExt: family('@fontsource/merriweather-sans', 'merriweather-sans-latin-ext'),
-  Symbols: family('@fontsource/dejavu-sans', 'dejavu-sans-latin'),
+const SOURCES = {
+  Text: ['@fontsource/merriweather-sans', 'merriweather-sans-latin'],
+  TextExt: ['@fontsource/merriweather-sans', 'merriweather-sans-latin-ext'],
+  Symbols: ['@fontsource/dejavu-sans', 'dejavu-sans-latin'],
 } as const
-export type FontName = keyof typeof FONT_FAMILIES
-const CHAIN = Object.keys(FONT_FAMILIES) as FontName[]
+export type FontName = keyof typeof SOURCES
+/** In the order a character looks for its glyph. */
+const CHAIN = Object.keys(SOURCES) as FontName[]
 const LAST: FontName = 'Symbols'
 
-export const FONT_FILES: ReadonlySet<string> = new Set(
-  Object.values(FONT_FAMILIES).flatMap((styles) => Object.values(styles)),
-)
+const fileName = (name: FontName, style: Style) => `${name}-${style}.ttf`
+
+/** pdfmake's font table: each family's styles by the names the font files go under in memory. */
+export const FONT_FAMILIES = Object.fromEntries(
+  CHAIN.map((name) => [
+    name,
+    Object.fromEntries(STYLES.map((style) => [style, fileName(name, style)])),
+  ]),
+) as Record<FontName, Record<Style, string>>
+
+let unpacked: Map<string, Buffer> | null = null
+
+/** The font files, unpacked from the packages' WOFF once per process. */
+export function loadFontFiles(): Map<string, Buffer> {
+  if (unpacked) return unpacked
+  const files = new Map<string, Buffer>()
+  for (const name of CHAIN) {
+    const [pkg, prefix] = SOURCES[name]
+    for (const style of STYLES) {
+      const woff = readFileSync(join(folderOf(pkg), `${prefix}-${WEIGHTS[style]}.woff`))
+      files.set(fileName(name, style), sfntFromWoff(woff))
+    }
+  }
+  unpacked = files
+  return files
+}
 
 let coverage: Map<FontName, fontkit.Font> | null = null
 const chosen = new Map<number, FontName>()
 
 function fontsForCoverage(): Map<FontName, fontkit.Font> {
+  const files = loadFontFiles()
   coverage ??= new Map(
     CHAIN.map((name) => [
       name,
-      fontkit.create(readFileSync(FONT_FAMILIES[name].normal)) as fontkit.Font,
+      fontkit.create(files.get(fileName(name, 'normal')) as Buffer) as fontkit.Font,
     ]),
   )
   return coverage

@@ -34,6 +34,9 @@ import { createLocalStorage } from './storage/local-storage'
 import { findingsBodyParser, findingsRoutes } from './routes/findings'
 import { createFindingsService } from './services/findings'
 import { hardnessRoutes } from './routes/hardness'
+import { settingsRoutes } from './routes/settings'
+import type { PdfRenderer } from './routes/report-pdf'
+import { renderReportPdfOffThread } from './services/reports/pdf'
 
 export interface AppDeps {
   db: Db
@@ -47,6 +50,8 @@ export interface AppDeps {
   log?: (error: unknown) => void
   /** runs tensile analyses; by default in the request's thread (the server passes a pool) */
   analyseTensile?: TensileAnalyser
+  /** lays out report PDFs; by default in a worker thread of its own per report */
+  renderReportPdf?: PdfRenderer
 }
 
 const defaultClientDir = resolve(projectRoot(), 'dist')
@@ -101,7 +106,10 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
   const children = {
     photos: casePhotoRoutes(db, photos, incomingDir),
-    findings: findingsRoutes(db, createFindingsService()),
+    findings: findingsRoutes(db, createFindingsService(), {
+      photos,
+      render: deps.renderReportPdf ?? renderReportPdfOffThread,
+    }),
     hardness: hardnessRoutes(db),
   }
   const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
@@ -110,6 +118,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))
   api.use('/photos', ...signedIn, photoRoutes(db, cases, photos))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
+  api.use('/settings', ...signedIn, settingsRoutes(db))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api

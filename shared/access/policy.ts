@@ -29,6 +29,10 @@ export type GlobalAction =
   | 'specifications.list'
   /** add and change specification records, and record their check against the edition */
   | 'specifications.manage'
+  /** read the laboratory's name and address, as reports print them */
+  | 'settings.read'
+  /** change the laboratory's name and address */
+  | 'settings.manage'
 
 export type CaseAction =
   /** see that the case exists (a client: as a plain status line) */
@@ -86,6 +90,8 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'case.editPhotos': ['admin', 'investigator', 'lab'],
   'specifications.list': STAFF_ROLES,
   'specifications.manage': ['admin'],
+  'settings.read': STAFF_ROLES,
+  'settings.manage': ['admin'],
   'case.recordTests': ['admin', 'investigator', 'lab'],
   'case.confirmTests': ['admin', 'lab'],
   'case.readFindings': STAFF_ROLES,

@@ -50,6 +50,14 @@ const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
     reviewer: false,
     client: false,
   },
+  'settings.read': { admin: true, investigator: true, lab: true, reviewer: true, client: false },
+  'settings.manage': {
+    admin: true,
+    investigator: false,
+    lab: false,
+    reviewer: false,
+    client: false,
+  },
 }
 
 describe('access policy: role × action', () => {

@@ -78,6 +78,12 @@ export const router = createRouter({
       meta: { roles: ADMINS, title: 'Organisations' },
     },
     {
+      path: '/admin/laboratory',
+      name: 'laboratory',
+      component: () => import('@/views/LaboratorySettingsView.vue'),
+      meta: { roles: ADMINS, title: 'Laboratory' },
+    },
+    {
       path: '/:pathMatch(.*)*',
       name: 'not-found',
       component: () => import('@/views/NotFoundView.vue'),

@@ -81,7 +81,7 @@ const figureBytes = Object.values(input.figures).reduce((sum, f) => sum + f.png.
 console.log(`figures: ${FIGURES} PNGs, ${(figureBytes / 1e6).toFixed(1)} MB together`)
 
 const times: number[] = []
-let pdf = Buffer.alloc(0)
+let pdf: Buffer = Buffer.alloc(0)
 for (let run = 0; run < 3; run++) {
   const start = performance.now()
   pdf = await renderReportPdf(input)

@@ -9,12 +9,12 @@ const browser = useBrowser()
  * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
  */
 
-type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations'
+type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations' | 'laboratory'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
     email: 'admin@demo.test',
-    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations'],
+    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations', 'laboratory'],
   },
   { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
@@ -31,6 +31,7 @@ async function openScreen(screen: Screen): Promise<void> {
     'new case': '/cases/new',
     people: '/admin/people',
     organisations: '/admin/organisations',
+    laboratory: '/admin/laboratory',
   }
   if (screen === 'case') {
     await openScreen('cases')

@@ -20,10 +20,12 @@ const common: BuildOptions = {
 /** The server keeps its packages in node_modules (some have native parts); maps for stack traces. */
 const server: BuildOptions = {
   ...common,
-  // The tensile analysis worker is a file of its own beside the server: worker threads load it.
+  // The tensile analysis and report PDF workers are files of their own beside the server: worker
+  // threads load them.
   entryPoints: {
     server: 'server/index.ts',
     'analysis-worker': 'server/tensile/analysis-worker.ts',
+    'report-pdf-worker': 'server/services/reports/pdf/worker.ts',
   },
   packages: 'external',
   sourcemap: true,

@@ -3,6 +3,7 @@
 import { mkdirSync, readFileSync, rmSync } from 'node:fs'
 import { resolveDatabase, type ResolvedDatabase } from '../server/db/database-url'
 import { ensureChromium } from './ensure-chromium'
+import { ensurePoppler } from './ensure-poppler'
 import { runStep } from './run-step'
 
 const RESULTS_DIR = '.data/test-results'
@@ -71,6 +72,7 @@ async function main(): Promise<number> {
     if ((await runStep(npx, [command, ...args])) !== 0) return 1
   }
   ensureChromium()
+  ensurePoppler()
   rmSync(RESULTS_DIR, { recursive: true, force: true })
   mkdirSync(RESULTS_DIR, { recursive: true })
   const { env, local } = await databases()

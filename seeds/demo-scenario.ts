@@ -7,6 +7,8 @@ import type { CaseState } from '../shared/workflow/case-states'
 
 // An invented scenario: the lab, its clients, people, parts and parties are all made up.
 export const DEMO_LAB_NAME = 'Kestrelmoor Materials Laboratory'
+/** An invented address in an invented town, printed on the demo's reports. */
+export const DEMO_LAB_ADDRESS = ['4 Foundry Row', 'Kestrelmoor KM2 7QT']
 
 export const ORGANISATIONS = [
   {

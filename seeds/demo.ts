@@ -9,7 +9,14 @@ import { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { FileStorage } from '../server/storage/file-storage'
 import { seedDemoTensile } from './demo-tensile'
 import { seedDemoReport } from './demo-reports'
-import { CASES, DEMO_LAB_NAME, ORGANISATIONS, PEOPLE, type DemoCase } from './demo-scenario'
+import {
+  CASES,
+  DEMO_LAB_ADDRESS,
+  DEMO_LAB_NAME,
+  ORGANISATIONS,
+  PEOPLE,
+  type DemoCase,
+} from './demo-scenario'
 
 export { DEMO_LAB_NAME } from './demo-scenario'
 
@@ -152,6 +159,11 @@ export async function seedDemoIfEmpty(db: Knex, options: DemoOptions): Promise<b
     }
     const actors = await seedPeople(trx, options, organisationIds)
     await seedCases(trx, today, organisationIds, actors, options.storage)
+    await trx('laboratory_settings').insert({
+      id: 1,
+      name: DEMO_LAB_NAME,
+      addressLines: JSON.stringify(DEMO_LAB_ADDRESS),
+    })
   })
   return true
 }

@@ -39,6 +39,9 @@ import { reviewRoutes } from './routes/review'
 import { amendRoutes, caseReportListRoutes, issueRoutes, reportRoutes } from './routes/reports'
 import { createReviewService } from './services/review'
 import { createReportService } from './services/reports'
+import { settingsRoutes } from './routes/settings'
+import type { PdfRenderer } from './routes/report-pdf'
+import { renderReportPdfOffThread } from './services/reports/pdf'
 
 export interface AppDeps {
   db: Db
@@ -52,6 +55,8 @@ export interface AppDeps {
   log?: (error: unknown) => void
   /** runs tensile analyses; by default in the request's thread (the server passes a pool) */
   analyseTensile?: TensileAnalyser
+  /** lays out report PDFs; by default in a worker thread of its own per report */
+  renderReportPdf?: PdfRenderer
 }
 
 const defaultClientDir = resolve(projectRoot(), 'dist')
@@ -107,7 +112,10 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const reports = createReportService({ storage: deps.storage, photos })
   const children = {
     photos: casePhotoRoutes(db, photos, incomingDir),
-    findings: findingsRoutes(db, createFindingsService()),
+    findings: findingsRoutes(db, createFindingsService(), {
+      photos,
+      render: deps.renderReportPdf ?? renderReportPdfOffThread,
+    }),
     hardness: hardnessRoutes(db),
     review: reviewRoutes(db, createReviewService()),
     reports: caseReportListRoutes(db, reports),
@@ -122,6 +130,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/reports', ...signedIn, reportRoutes(db, cases, reports))
   api.use('/dashboard', ...signedIn, dashboardRoutes(db))
   api.use('/admin', ...signedIn, adminMailRoutes(db, { demo: config.demoData }))
+  api.use('/settings', ...signedIn, settingsRoutes(db))
   api.use(apiNotFound)
   api.use(errorHandler(log))
   return api

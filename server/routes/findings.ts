@@ -8,6 +8,8 @@ import { allowOnCase, caseFileOf } from '../middleware/case-loader'
 import { currentUser } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { FindingsService } from '../services/findings'
+import { draftPdfRoute, type PdfRenderer } from './report-pdf'
+import type { PhotoService } from '../services/photos/photos'
 
 /** Drafts do not exist for a client: they learn nothing, not even that one is being written. */
 export const hiddenFromClients: RequestHandler = (req, _res, next) => {
@@ -25,13 +27,18 @@ export const findingsBodyParser = express.json({
 })
 
 /** `/api/cases/:id/findings`, behind the case loader. */
-export function findingsRoutes(db: Knex, findings: FindingsService): Router {
+export function findingsRoutes(
+  db: Knex,
+  findings: FindingsService,
+  preview?: { photos: PhotoService; render: PdfRenderer },
+): Router {
   const router = Router({ mergeParams: true })
   router.use(hiddenFromClients, allowOnCase('case.readFindings'))
   router.get('/', async (req, res) => {
     const actor = currentUser(req)
     res.json({ data: await findings.read({ actor, db }, caseFileOf(res).id) })
   })
+  if (preview) router.get('/pdf', draftPdfRoute(db, preview))
   router.put(
     '/',
     allowOnCase('case.editFindings'),

@@ -31,6 +31,10 @@ export type GlobalAction =
   | 'specifications.manage'
   /** see the outbox and resend, and (demo mode) read what the local SMTP server received */
   | 'mail.manage'
+  /** read the laboratory's name and address, as reports print them */
+  | 'settings.read'
+  /** change the laboratory's name and address */
+  | 'settings.manage'
 
 export type CaseAction =
   /** see that the case exists (a client: as a plain status line) */
@@ -107,6 +111,8 @@ const ROLE_RULES: Record<Action, readonly Role[]> = {
   'specifications.list': STAFF_ROLES,
   'specifications.manage': ['admin'],
   'mail.manage': ['admin'],
+  'settings.read': STAFF_ROLES,
+  'settings.manage': ['admin'],
   'case.recordTests': ['admin', 'investigator', 'lab'],
   'case.confirmTests': ['admin', 'lab'],
   'case.readFindings': STAFF_ROLES,

@@ -101,6 +101,10 @@ export const router = createRouter({
       name: 'mail-sent',
       component: () => import('@/views/MailSentView.vue'),
       meta: { roles: ADMINS, title: 'Mail sent' },
+      path: '/admin/laboratory',
+      name: 'laboratory',
+      component: () => import('@/views/LaboratorySettingsView.vue'),
+      meta: { roles: ADMINS, title: 'Laboratory' },
     },
     {
       path: '/:pathMatch(.*)*',

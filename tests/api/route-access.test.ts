@@ -1,6 +1,7 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
+import { renderReportPdf } from '../../server/services/reports/pdf'
 import type { Role } from '../../shared/schemas/roles'
 import { makeCase, makeOrganisation, makePerson } from '../factories'
 import { signedIn, type ApiSession } from '../helpers/api-session'
@@ -8,7 +9,13 @@ import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
+// PDFs laid out in the request's thread: quicker here than a worker per request
+const app = createApp({
+  db,
+  config: testConfig(),
+  clientDir: '/nonexistent',
+  renderReportPdf,
+})
 const ROLES: Role[] = ['admin', 'investigator', 'lab', 'reviewer', 'client']
 const sessions = new Map<Role, ApiSession>()
 const ids = { ownCase: 0, otherCase: 0, person: 0, organisation: 0 }
@@ -71,6 +78,20 @@ const ROUTES: RouteCase[] = [
   },
   // drafts are for staff; a client learns nothing of them, not even that one exists
   { method: 'get', template: '/api/cases/:ownCase/findings', expect: { client: 404, others: 200 } },
+  // the draft's PDF preview: for those who may read the draft
+  {
+    method: 'get',
+    template: '/api/cases/:ownCase/findings/pdf',
+    expect: { client: 404, others: 200 },
+  },
+  // the laboratory's particulars: staff read them, administrators change them
+  { method: 'get', template: '/api/settings/laboratory', expect: { client: 403, others: 200 } },
+  {
+    method: 'put',
+    template: '/api/settings/laboratory',
+    body: {},
+    expect: { admin: 400, others: 403 },
+  },
   // only the case's own investigators write them: these cases have none yet
   {
     method: 'put',

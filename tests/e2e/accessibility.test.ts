@@ -22,6 +22,7 @@ type Screen =
   | 'report'
   | 'outbox'
   | 'mail sent'
+  | 'laboratory'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
@@ -35,6 +36,7 @@ const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
       'organisations',
       'outbox',
       'mail sent',
+      'laboratory',
     ],
   },
   {
@@ -71,6 +73,7 @@ async function openScreen(screen: Screen): Promise<void> {
     outbox: '/admin/outbox',
     'mail sent': '/admin/mail',
     'reading room': '/reports',
+    laboratory: '/admin/laboratory',
   }
   if (screen === 'review') await openIssuedCase('review')
   else if (screen === 'case reports') await openIssuedCase('reports')

@@ -51,6 +51,14 @@ const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
     client: false,
   },
   'mail.manage': { admin: true, investigator: false, lab: false, reviewer: false, client: false },
+  'settings.read': { admin: true, investigator: true, lab: true, reviewer: true, client: false },
+  'settings.manage': {
+    admin: true,
+    investigator: false,
+    lab: false,
+    reviewer: false,
+    client: false,
+  },
 }
 
 describe('access policy: role × action', () => {

@@ -33,28 +33,24 @@ export const ChangePasswordRequest = z.strictObject({
 })
 export type ChangePasswordRequest = z.output<typeof ChangePasswordRequest>
 
+const SixDigits = z.string({ error: 'Enter the 6-digit code.' }).check(
+  z.trim(),
+  z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'),
+)
+
+export const SecondFactorCode = z.strictObject({ code: SixDigits })
+
+export const RecoveryCodeRequest = z.strictObject({
+  recoveryCode: z
+    .string({ error: 'Enter a recovery code.' })
+    .check(z.trim(), z.minLength(1, 'Enter a recovery code.'), z.maxLength(64)),
+})
+
 /** The second step of signing in: a code from the authenticator app, or one recovery code. */
-export const SecondFactorRequest = z.union([
-  z.strictObject({
-    code: z.string({ error: 'Enter the 6-digit code.' }).check(
-      z.trim(),
-      z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'),
-    ),
-  }),
-  z.strictObject({
-    recoveryCode: z
-      .string({ error: 'Enter a recovery code.' })
-      .check(z.trim(), z.minLength(1, 'Enter a recovery code.'), z.maxLength(64)),
-  }),
-])
+export const SecondFactorRequest = z.union([SecondFactorCode, RecoveryCodeRequest])
 export type SecondFactorRequest = z.output<typeof SecondFactorRequest>
 
-export const SecondFactorConfirmRequest = z.strictObject({
-  code: z.string({ error: 'Enter the 6-digit code.' }).check(
-    z.trim(),
-    z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'),
-  ),
-})
+export const SecondFactorConfirmRequest = SecondFactorCode
 export type SecondFactorConfirmRequest = z.output<typeof SecondFactorConfirmRequest>
 
 /** What enrolment shows: the key as a QR code (a data: URL) and as text. */

@@ -39,6 +39,12 @@ export const router = createRouter({
       meta: { title: 'Set password' },
     },
     {
+      path: '/second-factor',
+      name: 'second-factor-setup',
+      component: () => import('@/views/SecondFactorSetupView.vue'),
+      meta: { title: 'Two-factor sign-in' },
+    },
+    {
       path: '/cases',
       name: 'cases',
       component: () => import('@/views/CaseListView.vue'),
@@ -76,6 +82,12 @@ export const router = createRouter({
       name: 'organisations',
       component: () => import('@/views/OrganisationsView.vue'),
       meta: { roles: ADMINS, title: 'Organisations' },
+    },
+    {
+      path: '/admin/security-events',
+      name: 'security-events',
+      component: () => import('@/views/SecurityEventsView.vue'),
+      meta: { roles: ADMINS, title: 'Security trail' },
     },
     {
       path: '/:pathMatch(.*)*',

@@ -1,6 +1,6 @@
 import { describe, expect, inject, it } from 'vitest'
 import { focusIsWithin, seriousAccessibilityProblems, tabTo } from '../helpers/accessibility'
-import { signIn, useBrowser, waitForTable } from '../helpers/browser'
+import { secondFactorCodeFor, signIn, useBrowser, waitForTable } from '../helpers/browser'
 
 const browser = useBrowser()
 
@@ -9,12 +9,19 @@ const browser = useBrowser()
  * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
  */
 
-type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations'
+type Screen =
+  | 'home'
+  | 'cases'
+  | 'case'
+  | 'new case'
+  | 'people'
+  | 'organisations'
+  | 'security trail'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
     email: 'admin@demo.test',
-    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations'],
+    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations', 'security trail'],
   },
   { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
@@ -31,6 +38,7 @@ async function openScreen(screen: Screen): Promise<void> {
     'new case': '/cases/new',
     people: '/admin/people',
     organisations: '/admin/organisations',
+    'security trail': '/admin/security-events',
   }
   if (screen === 'case') {
     await openScreen('cases')
@@ -86,6 +94,10 @@ describe('with the keyboard only', () => {
     await page.keyboard.press('Tab')
     await tabTo(page, '#password', 1)
     await page.keyboard.type(inject('demoPassword'))
+    await page.keyboard.press('Enter')
+    // the second step takes the focus to its code field
+    await expect.poll(() => focusIsWithin(page, '#second-factor-code')).toBe(true)
+    await page.keyboard.type(await secondFactorCodeFor('admin@demo.test'))
     await page.keyboard.press('Enter')
     await page.waitForURL(`${base}/cases`)
     await waitForTable(page)

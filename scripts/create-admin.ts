@@ -31,7 +31,9 @@ async function main(): Promise<void> {
       { passwordCost: config.passwordCost, hours: config.oneTimePasswordHours },
     )
     console.log(`Administrator ${values.email.trim().toLowerCase()} created.`)
-    console.log(`One-time password (valid ${config.oneTimePasswordHours} hours): ${oneTimePassword}`)
+    console.log(
+      `One-time password (valid ${config.oneTimePasswordHours} hours): ${oneTimePassword}`,
+    )
     console.log('It must be changed at first sign-in, and a second factor set up.')
   } finally {
     await db.destroy()

@@ -138,7 +138,12 @@ function refusalRecorder(db: Db) {
   return async (req: Request, refusal: AppError) => {
     const kind = refusal.code === 'csrf_invalid' ? 'csrf.refused' : 'access.refused'
     const caseId = 'caseId' in refusal ? refusal.caseId : undefined
-    const details = { method: req.method, path: req.originalUrl.split('?')[0], status: refusal.status, caseId }
+    const details = {
+      method: req.method,
+      path: req.originalUrl.split('?')[0],
+      status: refusal.status,
+      caseId,
+    }
     await recordSecurityEvent(db, securityContextOf(req), { kind, details })
   }
 }

@@ -14,7 +14,9 @@ export const PENDING_SIGN_IN_MS = 5 * 60_000
 
 /** A new session id for the same visitor: the old id (and its stored row) stops working. */
 export function regenerateSession(req: Request): Promise<void> {
-  return new Promise((done, fail) => req.session.regenerate((error) => (error ? fail(error) : done())))
+  return new Promise((done, fail) =>
+    req.session.regenerate((error) => (error ? fail(error) : done())),
+  )
 }
 
 export function saveSession(req: Request): Promise<void> {

@@ -32,7 +32,10 @@ function external(given: ExternalDatabase & { url: string }): ResolvedDatabase {
   const applicationAccount =
     ownerUrl === given.url
       ? undefined
-      : { user: decodeURIComponent(new URL(given.url).username), host: given.applicationHost ?? '%' }
+      : {
+          user: decodeURIComponent(new URL(given.url).username),
+          host: given.applicationHost ?? '%',
+        }
   return { url: ownerUrl, appUrl: given.url, applicationAccount, local: undefined }
 }
 

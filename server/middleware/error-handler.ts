@@ -42,7 +42,9 @@ export type RefusalRecorder = (req: Request, refusal: AppError) => Promise<void>
 
 /** Refusals the security trail keeps: forbidden actions, bad security tokens, hidden cases. */
 export function isRecordedRefusal(error: AppError): boolean {
-  return error.code === 'forbidden' || error.code === 'csrf_invalid' || error instanceof HiddenNotFound
+  return (
+    error.code === 'forbidden' || error.code === 'csrf_invalid' || error instanceof HiddenNotFound
+  )
 }
 
 export function errorHandler(

@@ -1,21 +1,12 @@
 import { Router, type Request, type Response } from 'express'
-import {
-  ChangePasswordRequest,
-  LoginRequest,
-  SecondFactorRequest,
-} from '../../shared/schemas/auth'
+import { ChangePasswordRequest, LoginRequest, SecondFactorRequest } from '../../shared/schemas/auth'
 import type { Person } from '../../shared/schemas/people'
 import type { Config } from '../config'
 import { AppError, TooManyRequests, Unauthorized } from '../errors'
 import { issueCsrfToken } from '../auth/csrf'
 import { sessionCookieName } from '../auth/session'
 import { csrfTokenLimits, passwordChangeLimits } from '../auth/request-limits'
-import {
-  logIn,
-  PENDING_SIGN_IN_MS,
-  regenerateSession,
-  saveSession,
-} from '../auth/session-steps'
+import { logIn, PENDING_SIGN_IN_MS, regenerateSession, saveSession } from '../auth/session-steps'
 import { pause, SignInThrottle } from '../auth/sign-in-throttle'
 import { currentUser, requireSignedIn } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
@@ -31,8 +22,7 @@ import { secondFactorEnrolmentRoutes } from './second-factor'
 
 const GENERIC_FAILURE = 'The e-mail address or password is not correct.'
 const WRONG_CODE = 'The code is not correct or has already been used.'
-const EXPIRED =
-  'Your one-time password has expired. Ask an administrator to issue a new one.'
+const EXPIRED = 'Your one-time password has expired. Ask an administrator to issue a new one.'
 
 interface AuthDeps {
   db: Db
@@ -43,11 +33,7 @@ interface AuthDeps {
 
 function trailOf(db: Db) {
   return (req: Request, event: SecurityEventInput, actorId?: number) =>
-    recordSecurityEvent(
-      db,
-      { ...securityContextOf(req), ...(actorId ? { actorId } : {}) },
-      event,
-    )
+    recordSecurityEvent(db, { ...securityContextOf(req), ...(actorId ? { actorId } : {}) }, event)
 }
 
 async function completeSignIn(deps: AuthDeps, req: Request, res: Response, person: Person) {

@@ -25,7 +25,8 @@ export function secondFactorEnrolmentRoutes(deps: {
   })
   router.post('/confirm', validate('body', SecondFactorConfirmRequest), async (req, res) => {
     const secret = req.session.enrolmentSecret
-    if (!secret) throw new ValidationError('Start the set-up again: no key is waiting to be confirmed.')
+    if (!secret)
+      throw new ValidationError('Start the set-up again: no key is waiting to be confirmed.')
     const { code } = res.locals.body as SecondFactorConfirmRequest
     const trail = { ...securityContextOf(req), actorId: currentUser(req).id }
     const recoveryCodes = await deps.secondFactors.confirm(trail, secret, code)

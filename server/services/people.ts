@@ -178,8 +178,16 @@ export function createPeopleService(db: Knex, options: PeopleOptions) {
             kind: 'person.created',
             details: { personId: newId },
           })
-          const details = { personId: newId, roles: input.roles, organisationId: input.organisationId }
-          await recordSecurityEvent(trx, trail, { kind: 'person.created', email: input.email, details })
+          const details = {
+            personId: newId,
+            roles: input.roles,
+            organisationId: input.organisationId,
+          }
+          await recordSecurityEvent(trx, trail, {
+            kind: 'person.created',
+            email: input.email,
+            details,
+          })
           return newId as number
         }),
       DUPLICATE_EMAIL,
@@ -229,7 +237,11 @@ export function createPeopleService(db: Knex, options: PeopleOptions) {
         details: { personId: id },
       })
       const details = { personId: id }
-      await recordSecurityEvent(trx, trail, { kind: 'password.reset', email: person.email, details })
+      await recordSecurityEvent(trx, trail, {
+        kind: 'password.reset',
+        email: person.email,
+        details,
+      })
     })
     return { person: await get(id), oneTimePassword }
   }

@@ -33,10 +33,9 @@ export const ChangePasswordRequest = z.strictObject({
 })
 export type ChangePasswordRequest = z.output<typeof ChangePasswordRequest>
 
-const SixDigits = z.string({ error: 'Enter the 6-digit code.' }).check(
-  z.trim(),
-  z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'),
-)
+const SixDigits = z
+  .string({ error: 'Enter the 6-digit code.' })
+  .check(z.trim(), z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'))
 
 export const SecondFactorCode = z.strictObject({ code: SixDigits })
 

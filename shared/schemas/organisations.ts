@@ -6,7 +6,10 @@ const organisationFields = {
   name: trimmed(191, 'Name'),
   contactName: z._default(optionalText(191, 'Contact name'), null),
   contactEmail: z._default(z.nullable(Email), null),
-  requiresSecondFactor: z._default(z.boolean({ error: 'Say whether two-factor sign-in is required.' }), false),
+  requiresSecondFactor: z._default(
+    z.boolean({ error: 'Say whether two-factor sign-in is required.' }),
+    false,
+  ),
 }
 
 export const OrganisationCreate = z.strictObject(organisationFields)

@@ -6,7 +6,7 @@ export const SECURITY_EVENT_LABELS = {
   'sign_in.succeeded': 'Signed in',
   'sign_in.failed': 'Sign-in refused',
   'sign_in.throttled': 'Sign-in attempt throttled',
-  'sign_out': 'Signed out',
+  sign_out: 'Signed out',
   'csrf.refused': 'Request without a valid security token refused',
   'access.refused': 'Access refused',
   'password.changed': 'Own password changed',

@@ -46,7 +46,15 @@ describe('a fresh installation', () => {
   it('gets its first administrator from `npm run create-admin`, with a one-time password', async () => {
     const { stdout } = await run(
       process.execPath,
-      ['--import', 'tsx', 'scripts/create-admin.ts', '--email', 'First@Lab.example', '--name', 'Ada First'],
+      [
+        '--import',
+        'tsx',
+        'scripts/create-admin.ts',
+        '--email',
+        'First@Lab.example',
+        '--name',
+        'Ada First',
+      ],
       {
         cwd: repoRoot,
         env: { PATH: process.env.PATH, DATABASE_URL: testDatabaseUrl(), PASSWORD_COST: '10' },

@@ -115,7 +115,11 @@ describe('the security trail', () => {
         .expect(200),
     )
     const organisationRow = expectOne(moved, 'person.organisation_changed', adminPerson.id)
-    expect(organisationRow.details).toEqual({ personId: client2.id, from: organisationId, to: otherId })
+    expect(organisationRow.details).toEqual({
+      personId: client2.id,
+      from: organisationId,
+      to: otherId,
+    })
     expectOne(moved, 'person.deactivated', adminPerson.id)
   })
 
@@ -149,9 +153,11 @@ describe('the application’s database account', () => {
         const kind = table === 'security_events' ? 'kind' : 'action'
         const [id] = (await application(table).insert({ [kind]: 'sign_out' })) as number[]
         expect(await application(table).where({ id }).first()).toBeDefined()
-        await expect(application(table).where({ id }).update({ [kind]: 'x' })).rejects.toThrow(
-          /UPDATE command denied/,
-        )
+        await expect(
+          application(table)
+            .where({ id })
+            .update({ [kind]: 'x' }),
+        ).rejects.toThrow(/UPDATE command denied/)
         await expect(application(table).where({ id }).delete()).rejects.toThrow(
           /DELETE command denied/,
         )

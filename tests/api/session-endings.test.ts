@@ -91,7 +91,9 @@ describe('an old session cookie opens nothing', () => {
     await db('sessions')
       .where({ sid: sid(idle.cookie) })
       .update({ expired: new Date(Date.now() - 1000) })
-    const row = await db('sessions').where({ sid: sid(old.cookie) }).first()
+    const row = await db('sessions')
+      .where({ sid: sid(old.cookie) })
+      .first()
     const stored = typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess
     const lifetimeAgo = Date.now() - 13 * 3_600_000
     await db('sessions')

@@ -38,7 +38,9 @@ describe('sign-in throttles without lock-out', () => {
     const app = limitedApp({ loginLimits: limits })
     const statuses: number[] = []
     for (let attempt = 0; attempt < 6; attempt++) {
-      statuses.push((await from(app, STRANGER_ADDRESS).signIn(owner.email, 'guess ' + attempt)).status)
+      statuses.push(
+        (await from(app, STRANGER_ADDRESS).signIn(owner.email, 'guess ' + attempt)).status,
+      )
     }
     expect(statuses).toEqual([401, 401, 401, 429, 429, 429])
     const started = Date.now()
@@ -125,7 +127,10 @@ describe('other limits', () => {
       statuses.push((await session.post('/api/auth/password', body)).status)
     }
     expect(statuses).toEqual([400, 400, 429])
-    const rows = await db('security_events').where({ kind: 'password.throttled', actorId: owner.id })
+    const rows = await db('security_events').where({
+      kind: 'password.throttled',
+      actorId: owner.id,
+    })
     expect(rows).toHaveLength(1)
   })
 
@@ -133,7 +138,9 @@ describe('other limits', () => {
     const app = limitedApp({ csrfLimitPerAddress: 3 })
     const statuses = []
     for (let attempt = 0; attempt < 4; attempt++) {
-      statuses.push((await request(app).get('/api/auth/csrf').set('X-Forwarded-For', STRANGER_ADDRESS)).status)
+      statuses.push(
+        (await request(app).get('/api/auth/csrf').set('X-Forwarded-For', STRANGER_ADDRESS)).status,
+      )
     }
     expect(statuses).toEqual([200, 200, 200, 429])
     const other = await request(app).get('/api/auth/csrf').set('X-Forwarded-For', OWNER_ADDRESS)

@@ -9,14 +9,7 @@ const browser = useBrowser()
  * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
  */
 
-type Screen =
-  | 'home'
-  | 'cases'
-  | 'case'
-  | 'new case'
-  | 'people'
-  | 'organisations'
-  | 'security trail'
+type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations' | 'security trail'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {

@@ -79,7 +79,9 @@ describe('the first screens over the network', () => {
     await page.locator('#email').fill('investigator@demo.test')
     await page.locator('#password').fill(inject('demoPassword'))
     await page.getByTestId('sign-in-submit').click()
-    await page.locator('#second-factor-code').fill(await secondFactorCodeFor('investigator@demo.test'))
+    await page
+      .locator('#second-factor-code')
+      .fill(await secondFactorCodeFor('investigator@demo.test'))
     await page.getByTestId('second-factor-submit').click()
     await showCaseList(page)
 

@@ -1,11 +1,5 @@
 import { describe, expect, inject, it } from 'vitest'
-import {
-  screenshot,
-  signIn,
-  unexpectedErrors,
-  useBrowser,
-  waitForTable,
-} from '../helpers/browser'
+import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
 import { totpCode } from '../helpers/totp-code'
 
 const browser = useBrowser()
@@ -59,7 +53,7 @@ describe('a new staff member', () => {
     await page.getByTestId('set-password-submit').click()
 
     // staff set up a second factor before anything else: the key as a QR code and as text
-    await page.waitForURL(/\/second-factor\?redirect=%2Fcases/)
+    await page.waitForURL(/\/second-factor\?redirect=(%2F|\/)cases/)
     const keyText = page.getByTestId('second-factor-key')
     await expect.poll(() => keyText.isVisible()).toBe(true)
     const key = ((await keyText.textContent()) ?? '').trim()
@@ -97,9 +91,7 @@ describe('a new staff member', () => {
     await page.getByTestId('second-factor-form').waitFor()
     await page.locator('#second-factor-code').fill('000000')
     await page.getByTestId('second-factor-submit').click()
-    await expect
-      .poll(() => page.getByTestId('form-error').textContent())
-      .toContain('not correct')
+    await expect.poll(() => page.getByTestId('form-error').textContent()).toContain('not correct')
     await screenshot(page, 'second-factor-refused')
     await page.locator('#second-factor-code').fill(totpCode(newKey, Date.now() + 30_000))
     await page.getByTestId('second-factor-submit').click()

@@ -1,7 +1,7 @@
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { chromium, type APIRequestContext, type BrowserContext, type Page } from 'playwright-core'
 import type { Knex } from 'knex'
 import { afterAll, beforeAll, expect, inject } from 'vitest'
 import { createDb } from '../../server/db/knex'
@@ -100,6 +100,30 @@ export async function secondFactorCodeFor(email: string): Promise<string> {
   e2eDb ??= createDb(url, { min: 0, max: 1, idleTimeoutMillis: 1_000 })
   const demo = PEOPLE.some((person) => person.email === email.toLowerCase())
   return currentCodeFor(email, { db: e2eDb, secret: demo ? inject('demoTotpSecret') : undefined })
+}
+
+/**
+ * Signs a playwright API context in fully (password, then the second factor's code when asked),
+ * for journeys that prepare data through the API; answers the last step's status.
+ */
+export async function apiSignIn(
+  api: APIRequestContext,
+  email: string,
+  password: string,
+): Promise<number> {
+  const token = async () => (await (await api.get('/api/auth/csrf')).json()).data.token as string
+  const login = await api.post('/api/auth/login', {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { email, password },
+  })
+  if (login.status() !== 200 || !(await login.json()).data.secondFactorRequired) {
+    return login.status()
+  }
+  const completed = await api.post('/api/auth/second-factor', {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { code: await secondFactorCodeFor(email) },
+  })
+  return completed.status()
 }
 
 /**

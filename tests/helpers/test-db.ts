@@ -30,7 +30,10 @@ export function applicationDatabaseUrl(which: Which = 'TEST'): string | undefine
 export async function grantTestApplicationAccount(owner: Db, which: Which = 'TEST') {
   const url = applicationDatabaseUrl(which)
   if (!url) return
-  await grantApplicationAccess(owner, accountOfUrl(url, process.env.TEST_APP_DATABASE_HOST ?? '127.0.0.1'))
+  await grantApplicationAccess(
+    owner,
+    accountOfUrl(url, process.env.TEST_APP_DATABASE_HOST ?? '127.0.0.1'),
+  )
 }
 
 /** Empties every table but the migration bookkeeping, so each test file starts from nothing. */

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { matchingStep, newRecoveryCodes, newTotpSecret, recoveryCodeHash } from '../../server/auth/totp'
+import {
+  matchingStep,
+  newRecoveryCodes,
+  newTotpSecret,
+  recoveryCodeHash,
+} from '../../server/auth/totp'
 import { base32Bytes, base32Of, hotp, totpCode } from '../helpers/totp-code'
 
 // RFC 6238 Appendix B: the shared secret is the ASCII text "12345678901234567890" (SHA-1 mode),
@@ -38,7 +43,9 @@ describe('the server’s code check (server/auth/totp.ts, the otpauth package)',
   it('accepts the RFC 6238 vectors (their last six digits) at their time, naming the step', () => {
     for (const { seconds, code } of RFC6238_SHA1) {
       const step = Math.floor(seconds / 30)
-      expect(matchingStep(RFC6238_SECRET, code.slice(2), seconds * 1000), String(seconds)).toBe(step)
+      expect(matchingStep(RFC6238_SECRET, code.slice(2), seconds * 1000), String(seconds)).toBe(
+        step,
+      )
     }
   })
 

@@ -14,8 +14,10 @@ type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
     email: 'admin@demo.test',
-    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations', 'security trail'],
+    screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations'],
   },
+  // a test of its own: seven screens with axe each take too long for one test on a busy machine
+  { email: 'admin@demo.test', screens: ['security trail'] },
   { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
   { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case'] },
@@ -60,7 +62,7 @@ describe('accessibility', () => {
   })
 
   for (const { email, screens } of SCREENS_BY_ROLE) {
-    it(`finds no serious problem on the main screens of ${email}`, async () => {
+    it(`finds no serious problem on the main screens of ${email}: ${screens.join(', ')}`, async () => {
       const page = browser().page
       await signIn(page, inject('baseUrl'), email, inject('demoPassword'))
       const problems: string[] = []

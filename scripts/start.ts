@@ -4,9 +4,9 @@
 // `--watch` (npm run dev:api) skips the build and runs the TypeScript server with reload.
 import { spawn, type ChildProcess } from 'node:child_process'
 import { ConfigError, loadConfig, type Config } from '../server/config'
-import { resolveDatabase } from '../server/db/database-url'
+import { resolveDatabase, type ResolvedDatabase } from '../server/db/database-url'
 import { createDb } from '../server/db/knex'
-import { migrateLatest } from '../server/db/migrations'
+import { migrateAndGrant } from '../server/db/grants'
 import { seedStarterSpecifications } from '../server/services/specifications'
 import { createLocalStorage } from '../server/storage/local-storage'
 import { startLocalMail, type LocalMail } from './local-mail'
@@ -31,15 +31,15 @@ function demoBanner(config: Config): string {
     'DEMO MODE: an invented laboratory with published passwords. Not for real data.',
     'For real work set NODE_ENV=production and DATABASE_URL (or DEMO_DATA=false).',
     rule,
-    demoAccountsNote(config.demoPassword),
+    demoAccountsNote(config.demoPassword, config.demoTotpSecret),
     rule,
   ].join('\n')
 }
 
-async function prepareDatabase(config: Config, url: string): Promise<void> {
-  const db = createDb(url, { min: 0, max: 2 })
+async function prepareDatabase(config: Config, database: ResolvedDatabase): Promise<void> {
+  const db = createDb(database.url, { min: 0, max: 2 })
   try {
-    const applied = await migrateLatest(db)
+    const applied = await migrateAndGrant(db, database.applicationAccount)
     if (applied.length > 0) console.log(`Applied ${applied.length} migration(s).`)
     const starters = await seedStarterSpecifications(db)
     if (starters > 0) console.log(`Specification library started: ${starters} unverified records.`)
@@ -48,6 +48,7 @@ async function prepareDatabase(config: Config, url: string): Promise<void> {
       password: config.demoPassword,
       passwordCost: config.passwordCost,
       storage: createLocalStorage(config.uploadsDir),
+      totpSecret: config.demoTotpSecret,
     }
     if (await seedDemoIfEmpty(db, options)) console.log('Demo scenario seeded.')
     console.log(demoBanner(config))
@@ -63,7 +64,13 @@ async function build(): Promise<boolean> {
 }
 
 function startServer(databaseUrl: string, smtpUrl: string | undefined): ChildProcess {
-  const serverEnv = { ...env, DATABASE_URL: databaseUrl, ...(smtpUrl ? { SMTP_URL: smtpUrl } : {}) }
+  // the owner's account stays with start-up: the server never holds it
+  const { DATABASE_OWNER_URL: _owner, ...rest } = env
+  const serverEnv = {
+    ...rest,
+    DATABASE_URL: databaseUrl,
+    ...(smtpUrl ? { SMTP_URL: smtpUrl } : {}),
+  }
   const [command, args] = watch
     ? ['npx', ['tsx', 'watch', 'server/index.ts']]
     : [process.execPath, ['--enable-source-maps', 'dist-server/server.js']]
@@ -79,12 +86,18 @@ async function main(): Promise<number> {
     console.error('The build failed; not starting.')
     return 1
   }
-  const database = await resolveDatabase(config.databaseUrl, 'fractolog')
+  const given = {
+    url: config.databaseUrl,
+    ownerUrl: config.databaseOwnerUrl,
+    applicationHost: config.databaseAppHost,
+  }
+  const database = await resolveDatabase(given, 'fractolog')
   let mail: LocalMail | undefined
   try {
-    await prepareDatabase(config, database.url)
-    mail = await startLocalMail(config, database.url)
-    const server = startServer(database.url, mail?.url)
+    await prepareDatabase(config, database)
+    mail = await startLocalMail(config, database.appUrl)
+    // the server runs on the application's account: it cannot rewrite the trails
+    const server = startServer(database.appUrl, mail?.url)
     // Ctrl-C reaches the server too (same process group); a plain SIGTERM to npm is passed on.
     for (const signal of ['SIGINT', 'SIGTERM'] as const) {
       process.on(signal, () => server.kill(signal))

@@ -58,11 +58,28 @@ async function runProjects(env: NodeJS.ProcessEnv): Promise<Counts> {
   return total
 }
 
+/**
+ * Each test database has two accounts: the owner (migrations, resets: TEST_DATABASE_URL,
+ * E2E_DATABASE_URL) and the application's (TEST_APP_DATABASE_URL, E2E_APP_DATABASE_URL), which
+ * the global set-ups grant its tables after migrating, as `npm start` does.
+ */
 async function databases(): Promise<{ env: NodeJS.ProcessEnv; local: ResolvedDatabase['local'] }> {
-  const external = process.env.TEST_DATABASE_URL
-  const api = await resolveDatabase(external, 'fractolog_test')
-  const e2e = await resolveDatabase(external, 'fractolog_e2e')
-  const env = { ...process.env, TEST_DATABASE_URL: api.url, E2E_DATABASE_URL: e2e.url }
+  const owner = process.env.TEST_DATABASE_URL
+  const given = {
+    url: process.env.TEST_APP_DATABASE_URL ?? owner,
+    ownerUrl: owner,
+    applicationHost: process.env.DATABASE_APP_HOST,
+  }
+  const api = await resolveDatabase(given, 'fractolog_test')
+  const e2e = await resolveDatabase(given, 'fractolog_e2e')
+  const env = {
+    ...process.env,
+    TEST_DATABASE_URL: api.url,
+    TEST_APP_DATABASE_URL: api.appUrl,
+    E2E_DATABASE_URL: e2e.url,
+    E2E_APP_DATABASE_URL: e2e.appUrl,
+    ...(api.applicationAccount ? { TEST_APP_DATABASE_HOST: api.applicationAccount.host } : {}),
+  }
   return { env, local: api.local ?? e2e.local }
 }
 

@@ -27,7 +27,12 @@ export interface DemoOptions {
   today?: Date
   /** where the demo's stored files (raw tensile records) go */
   storage: FileStorage
+  /** the second-factor key every demo account is enrolled with (base32) */
+  totpSecret?: string
 }
+
+/** The shared second-factor key of the demo accounts unless DEMO_TOTP_SECRET names another. */
+export const DEFAULT_DEMO_TOTP_SECRET = 'FRACTOLOGDEMOKEY'
 
 const WAY_TO: Record<DemoCase['status'], CaseState[]> = {
   intake: [],
@@ -53,6 +58,8 @@ async function seedPeople(trx: Knex, options: DemoOptions, organisationIds: Map<
       passwordHash,
       mustChangePassword: false,
       organisationId,
+      secondFactorSecret: options.totpSecret ?? DEFAULT_DEMO_TOTP_SECRET,
+      secondFactorEnrolledAt: new Date(),
     })) as number[]
     await trx('user_roles').insert(person.roles.map((role) => ({ userId: id, role })))
     actors.set(person.key, { id: id as number, roles: person.roles, organisationId })
@@ -141,9 +148,14 @@ async function seedCases(
   }
 }
 
-export function demoAccountsNote(password: string): string {
+export function demoAccountsNote(password: string, totpSecret = DEFAULT_DEMO_TOTP_SECRET): string {
   const accounts = PEOPLE.map((person) => `  ${person.email.padEnd(24)} ${person.roles.join(', ')}`)
-  return [`Demo sign-ins (${DEMO_LAB_NAME}), password "${password}":`, ...accounts].join('\n')
+  return [
+    `Demo sign-ins (${DEMO_LAB_NAME}), password "${password}":`,
+    ...accounts,
+    `Two-factor sign-in: every demo account is enrolled with the key ${totpSecret}`,
+    '(add it to an authenticator app as a time-based key, or compute the 6-digit code from it).',
+  ].join('\n')
 }
 
 /** Seeds the invented demo scenario into an empty database; returns false when it holds people. */

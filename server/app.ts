@@ -10,7 +10,16 @@ import { createPassport } from './auth/passport'
 import { createSessionMiddleware, enforceAbsoluteLifetime } from './auth/session'
 import { serveClient } from './client-files'
 import { apiNotFound, errorHandler } from './middleware/error-handler'
-import { requirePasswordSet, requireSignedIn } from './middleware/require-auth'
+import {
+  requirePasswordSet,
+  requireSecondFactorSet,
+  requireSignedIn,
+} from './middleware/require-auth'
+import { securityEventRoutes } from './routes/security-events'
+import { createSecondFactorService } from './services/second-factor'
+import { recordSecurityEvent, securityContextOf } from './services/security-events'
+import type { AppError } from './errors'
+import type { Request } from 'express'
 import { authRoutes } from './routes/auth'
 import { caseRoutes } from './routes/cases'
 import { dashboardRoutes } from './routes/dashboard'
@@ -74,7 +83,7 @@ function securityHeaders(config: Config) {
         fontSrc: ["'self'"],
         connectSrc: ["'self'"],
         objectSrc: ["'none'"],
-        baseUri: ["'self'"],
+        baseUri: ["'none'"],
         formAction: ["'self'"],
         frameAncestors: ["'none'"],
         ...(config.nodeEnv === 'production' ? { upgradeInsecureRequests: [] } : {}),
@@ -86,9 +95,18 @@ function securityHeaders(config: Config) {
 
 function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknown) => void) {
   const { db, config } = deps
-  const people = createPeopleService(db, { passwordCost: config.passwordCost })
+  const people = createPeopleService(db, {
+    passwordCost: config.passwordCost,
+    oneTimePasswordHours: config.oneTimePasswordHours,
+  })
+  const secondFactors = createSecondFactorService(db)
   const passport = createPassport(people)
   const api = express.Router()
+  // answers carry one-time passwords and case data; file routes that never change say otherwise
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store')
+    next()
+  })
   // The built client is compressed ahead of time; answers of the API are compressed here.
   api.use(compression())
   // not strict: a `null` or a bare number is refused by validate() with words saying what to send
@@ -99,9 +117,10 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use(passport.session())
   api.use(csrfProtection)
   api.use('/health', healthRoutes(db))
-  api.use('/auth', authRoutes({ passport, people, config }))
-  const signedIn = [requireSignedIn, requirePasswordSet]
-  api.use('/people', ...signedIn, peopleRoutes(people))
+  api.use('/auth', authRoutes({ db, people, secondFactors, config }))
+  const signedIn = [requireSignedIn, requirePasswordSet, requireSecondFactorSet]
+  api.use('/people', ...signedIn, peopleRoutes(people, secondFactors))
+  api.use('/security-events', ...signedIn, securityEventRoutes(db))
   api.use('/staff', ...signedIn, staffRoutes(people))
   api.use('/organisations', ...signedIn, organisationRoutes(createOrganisationService(db)))
   const cases = createCaseService()
@@ -132,8 +151,22 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use('/admin', ...signedIn, adminMailRoutes(db, { demo: config.demoData }))
   api.use('/settings', ...signedIn, settingsRoutes(db))
   api.use(apiNotFound)
-  api.use(errorHandler(log))
+  api.use(errorHandler(log, refusalRecorder(db)))
   return api
+}
+
+function refusalRecorder(db: Db) {
+  return async (req: Request, refusal: AppError) => {
+    const kind = refusal.code === 'csrf_invalid' ? 'csrf.refused' : 'access.refused'
+    const caseId = 'caseId' in refusal ? refusal.caseId : undefined
+    const details = {
+      method: req.method,
+      path: req.originalUrl.split('?')[0],
+      status: refusal.status,
+      caseId,
+    }
+    await recordSecurityEvent(db, securityContextOf(req), { kind, details })
+  }
 }
 
 /** Uploads are served only through the API's checks: never from a folder the web server serves. */
@@ -154,7 +187,8 @@ export function createApp(deps: AppDeps): Express {
   const log = deps.log ?? ((error: unknown) => console.error(error))
   const app = express()
   app.disable('x-powered-by')
-  app.set('trust proxy', 'loopback')
+  // X-Forwarded-For names the client only when a trusted proxy sent the request (TRUST_PROXY)
+  app.set('trust proxy', config.trustProxy)
   app.use(securityHeaders(config))
   if (config.logRequests) app.use(morgan('short'))
 

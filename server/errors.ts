@@ -38,6 +38,19 @@ export class NotFound extends AppError {
   }
 }
 
+/**
+ * A case (or a child of one) that exists but lies outside the viewer's scope: answered exactly as
+ * a missing one, and written to the security trail as a refused access.
+ */
+export class HiddenNotFound extends NotFound {
+  constructor(
+    readonly caseId: number,
+    message: string,
+  ) {
+    super(message)
+  }
+}
+
 /** A duplicate of something that must be unique. */
 export class Conflict extends AppError {
   constructor(message: string, details?: unknown) {

@@ -1,5 +1,4 @@
 import { Passport } from 'passport'
-import { Strategy as LocalStrategy } from 'passport-local'
 import type { SessionUser } from '../../shared/schemas/auth'
 import { toSessionUser, type PeopleService } from '../services/people'
 
@@ -14,22 +13,12 @@ declare global {
 export type AppPassport = InstanceType<typeof Passport>
 
 /**
- * One passport instance per app (tests build many apps). The session keeps only the person's id;
+ * One passport instance per app (tests build many apps); it keeps the signed-in person in the
+ * session (the routes check passwords and codes themselves). The session keeps only the person's id;
  * every request reloads them, so a deactivated person or a changed role takes effect at once.
  */
 export function createPassport(people: PeopleService): AppPassport {
   const passport = new Passport()
-  passport.use(
-    new LocalStrategy(
-      { usernameField: 'email', passwordField: 'password' },
-      (email, password, done) => {
-        people
-          .verifyCredentials(email, password)
-          .then((person) => done(null, person ? toSessionUser(person) : false))
-          .catch(done)
-      },
-    ),
-  )
   passport.serializeUser((user, done) => done(null, user.id))
   passport.deserializeUser((id: number, done) => {
     people

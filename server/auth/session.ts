@@ -22,6 +22,14 @@ export interface SessionHandle {
  * request, which gives the idle timeout (the stored expiry follows at most once a minute); `enforceAbsoluteLifetime` ends a session that is older
  * than the absolute limit however active it is.
  */
+/**
+ * In production the cookie carries the `__Host-` prefix: browsers then accept it only when it is
+ * Secure, for the whole site and from this host alone (no Domain), so a neighbour cannot set it.
+ */
+export function sessionCookieName(config: Config): string {
+  return config.nodeEnv === 'production' ? '__Host-fractolog.sid' : 'fractolog.sid'
+}
+
 export function createSessionMiddleware(
   db: Knex,
   config: Config,
@@ -30,7 +38,7 @@ export function createSessionMiddleware(
   const cleanupMs = config.nodeEnv === 'test' ? 0 : 10 * 60_000
   const store = new SessionStore({ db, cleanupMs, log })
   const middleware = session({
-    name: 'fractolog.sid',
+    name: sessionCookieName(config),
     secret: config.sessionSecret,
     store,
     resave: false,
@@ -39,6 +47,7 @@ export function createSessionMiddleware(
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
+      path: '/',
       secure: config.nodeEnv === 'production',
       maxAge: config.sessionIdleMinutes * 60_000,
     },

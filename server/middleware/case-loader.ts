@@ -2,7 +2,7 @@ import type { Request, RequestHandler, Response } from 'express'
 import type { Knex } from 'knex'
 import type { CaseAction } from '../../shared/access/policy'
 import { IdParams } from '../../shared/schemas/common'
-import { Forbidden, NotFound } from '../errors'
+import { Forbidden, HiddenNotFound, NotFound } from '../errors'
 import type { CaseRecord, CaseService } from '../services/cases'
 import { authorize, currentUser } from './require-auth'
 import { parseOrThrow } from './validate'
@@ -16,8 +16,19 @@ export function caseLoader(db: Knex, cases: CaseService): RequestHandler {
   return async (req, res, next) => {
     const actor = authorize(req, 'case.view')
     const { id } = parseOrThrow(IdParams, { id: req.params.id }, 'URL')
-    res.locals.caseFile = await cases.load({ actor, db }, id)
+    res.locals.caseFile = await loadOrHide(db, cases, actor, id)
     next()
+  }
+}
+
+/** The case within the viewer's scope; one that exists outside it is refused as a hidden 404. */
+async function loadOrHide(db: Knex, cases: CaseService, actor: Express.User, id: number) {
+  try {
+    return await cases.load({ actor, db }, id)
+  } catch (error) {
+    if (!(error instanceof NotFound)) throw error
+    const exists = await db('cases').where({ id }).first('id')
+    throw exists ? new HiddenNotFound(id, error.message) : error
   }
 }
 
@@ -35,7 +46,7 @@ export function childCaseLoader(
     const { id } = parseOrThrow(IdParams, { id: req.params.id }, 'URL')
     const caseId = await caseIdOf(db, id)
     if (caseId === undefined) throw new NotFound()
-    res.locals.caseFile = await cases.load({ actor, db }, caseId)
+    res.locals.caseFile = await loadOrHide(db, cases, actor, caseId)
     next()
   }
 }

@@ -1,6 +1,6 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express'
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express'
 import { isDatabaseUnavailable, outageLogger } from '../db/availability'
-import { AppError, DatabaseUnavailable, NotFound, ValidationError } from '../errors'
+import { AppError, DatabaseUnavailable, HiddenNotFound, NotFound, ValidationError } from '../errors'
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new NotFound(`No API route for ${req.method} ${req.baseUrl}${req.path}.`))
@@ -37,8 +37,36 @@ function knownError(error: unknown): AppError | undefined {
   return undefined
 }
 
-export function errorHandler(log: (error: unknown) => void): ErrorRequestHandler {
+/** Notes a refusal on the security trail before it is answered (403s and hidden cases). */
+export type RefusalRecorder = (req: Request, refusal: AppError) => Promise<void>
+
+/** Refusals the security trail keeps: forbidden actions, bad security tokens, hidden cases. */
+export function isRecordedRefusal(error: AppError): boolean {
+  return (
+    error.code === 'forbidden' || error.code === 'csrf_invalid' || error instanceof HiddenNotFound
+  )
+}
+
+export function errorHandler(
+  log: (error: unknown) => void,
+  recordRefusal?: RefusalRecorder,
+): ErrorRequestHandler {
   const logOutage = outageLogger((message) => log(message))
+  const answer = answerError(log, logOutage)
+  return (error: unknown, req, res, next) => {
+    const known = knownError(error)
+    if (!recordRefusal || !known || !isRecordedRefusal(known)) return answer(error, req, res, next)
+    recordRefusal(req, known).then(
+      () => answer(error, req, res, next),
+      (recordError: unknown) => answer(recordError, req, res, next),
+    )
+  }
+}
+
+function answerError(
+  log: (error: unknown) => void,
+  logOutage: (error: unknown) => void,
+): ErrorRequestHandler {
   return (error: unknown, _req, res, _next) => {
     const known = knownError(error)
     if (known?.code === 'database_unavailable') logOutage(error)

@@ -21,6 +21,17 @@ export const requirePasswordSet: RequestHandler = (req, _res, next) => {
   next()
 }
 
+/** Staff (and clients whose organisation says so) set up their second factor before working. */
+export const requireSecondFactorSet: RequestHandler = (req, _res, next) => {
+  if (currentUser(req).secondFactorSetupRequired) {
+    throw new AppError(
+      'second_factor_setup_required',
+      'Set up two-factor sign-in first: your role requires it.',
+    )
+  }
+  next()
+}
+
 export function requirePermission(action: Action): RequestHandler {
   return (req, _res, next) => {
     authorize(req, action)

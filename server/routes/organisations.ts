@@ -5,6 +5,7 @@ import { organisationScope } from '../../shared/access/policy'
 import { authorize, currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { OrganisationService } from '../services/organisations'
+import { securityContextOf } from '../services/security-events'
 
 export function organisationRoutes(organisations: OrganisationService): Router {
   const router = Router()
@@ -29,7 +30,8 @@ export function organisationRoutes(organisations: OrganisationService): Router {
     async (req, res) => {
       const { id } = res.locals.params as IdParams
       const input = res.locals.body as OrganisationUpdate
-      res.json({ data: await organisations.update(id, input, currentUser(req).id) })
+      const trail = securityContextOf(req)
+      res.json({ data: await organisations.update(id, input, currentUser(req).id, trail) })
     },
   )
   return router

@@ -4,15 +4,18 @@ import { PersonCreate, PersonUpdate } from '../../shared/schemas/people'
 import { currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { PeopleService } from '../services/people'
+import type { SecondFactorService } from '../services/second-factor'
+import { securityContextOf } from '../services/security-events'
 
-export function peopleRoutes(people: PeopleService): Router {
+export function peopleRoutes(people: PeopleService, secondFactors: SecondFactorService): Router {
   const router = Router()
   router.use(requirePermission('people.manage'))
   router.get('/', async (_req, res) => {
     res.json({ data: await people.list() })
   })
   router.post('/', validate('body', PersonCreate), async (req, res) => {
-    const created = await people.create(res.locals.body as PersonCreate, currentUser(req).id)
+    const body = res.locals.body as PersonCreate
+    const created = await people.create(body, currentUser(req).id, securityContextOf(req))
     res.status(201).json({ data: created })
   })
   router.put(
@@ -21,14 +24,21 @@ export function peopleRoutes(people: PeopleService): Router {
     validate('body', PersonUpdate),
     async (req, res) => {
       const { id } = res.locals.params as IdParams
-      res.json({
-        data: await people.update(id, res.locals.body as PersonUpdate, currentUser(req).id),
-      })
+      const body = res.locals.body as PersonUpdate
+      const trail = securityContextOf(req)
+      res.json({ data: await people.update(id, body, currentUser(req).id, trail) })
     },
   )
   router.post('/:id/reset-password', validate('params', IdParams), async (req, res) => {
     const { id } = res.locals.params as IdParams
-    res.json({ data: await people.resetPassword(id, currentUser(req).id) })
+    const trail = securityContextOf(req)
+    res.json({ data: await people.resetPassword(id, currentUser(req).id, trail) })
+  })
+  router.post('/:id/reset-second-factor', validate('params', IdParams), async (req, res) => {
+    const { id } = res.locals.params as IdParams
+    await people.get(id)
+    await secondFactors.reset(securityContextOf(req), id)
+    res.json({ data: await people.get(id) })
   })
   return router
 }

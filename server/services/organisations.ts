@@ -7,9 +7,14 @@ import type {
 import { withDbErrors } from '../db/errors'
 import { NotFound } from '../errors'
 import { recordAudit } from './audit'
+import { recordSecurityEvent, type SecurityContext } from './security-events'
 
-interface OrganisationRow extends Omit<Organisation, 'active' | 'createdAt'> {
+interface OrganisationRow extends Omit<
+  Organisation,
+  'active' | 'createdAt' | 'requiresSecondFactor'
+> {
   active: number | boolean
+  requiresSecondFactor: number | boolean
   createdAt: Date
 }
 
@@ -21,6 +26,7 @@ const toOrganisation = (row: OrganisationRow): Organisation => ({
   contactName: row.contactName,
   contactEmail: row.contactEmail,
   active: Boolean(row.active),
+  requiresSecondFactor: Boolean(row.requiresSecondFactor),
   createdAt: row.createdAt.toISOString(),
 })
 
@@ -55,8 +61,13 @@ export function createOrganisationService(db: Knex) {
     return get(id)
   }
 
-  async function update(id: number, input: OrganisationUpdate, actorId: number) {
-    await get(id)
+  async function update(
+    id: number,
+    input: OrganisationUpdate,
+    actorId: number,
+    trail: SecurityContext = { actorId, address: null, userAgent: null },
+  ) {
+    const before = await get(id)
     await withDbErrors(
       () =>
         db.transaction(async (trx) => {
@@ -66,6 +77,15 @@ export function createOrganisationService(db: Knex) {
             kind: 'organisation.updated',
             details: { organisationId: id },
           })
+          if (before.requiresSecondFactor !== input.requiresSecondFactor) {
+            const details = {
+              organisationId: id,
+              from: before.requiresSecondFactor,
+              to: input.requiresSecondFactor,
+            }
+            const kind = 'organisation.second_factor_changed'
+            await recordSecurityEvent(trx, trail, { kind, details })
+          }
         }),
       DUPLICATE_NAME,
     )

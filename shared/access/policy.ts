@@ -20,6 +20,8 @@ export interface CaseRef {
 
 export type GlobalAction =
   | 'people.manage'
+  /** read the security trail (sign-ins, refusals, changes of people) */
+  | 'security.audit'
   | 'organisations.manage'
   | 'organisations.list'
   | 'staff.list'
@@ -93,6 +95,7 @@ const holds = (actor: Actor, ...roles: Role[]) => actor.roles.some((role) => rol
 /** Which roles may take each action at all; the case-level rules below narrow it down. */
 const ROLE_RULES: Record<Action, readonly Role[]> = {
   'people.manage': ['admin'],
+  'security.audit': ['admin'],
   'organisations.manage': ['admin'],
   'organisations.list': [...STAFF_ROLES, 'client'],
   'staff.list': STAFF_ROLES,

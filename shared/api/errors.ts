@@ -9,6 +9,10 @@ export const ERROR_STATUS = {
   invalid_credentials: 401,
   forbidden: 403,
   password_change_required: 403,
+  /** signed in with a password only, and a second factor is required: set it up first */
+  second_factor_setup_required: 403,
+  /** the administrator's one-time password is past its time: ask for another */
+  one_time_password_expired: 401,
   csrf_invalid: 403,
   /** the person wrote (or leads, or co-investigates) the draft they try to approve */
   four_eyes: 403,

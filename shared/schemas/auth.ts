@@ -33,6 +33,32 @@ export const ChangePasswordRequest = z.strictObject({
 })
 export type ChangePasswordRequest = z.output<typeof ChangePasswordRequest>
 
+const SixDigits = z
+  .string({ error: 'Enter the 6-digit code.' })
+  .check(z.trim(), z.regex(/^\d{6}$/, 'Enter the 6-digit code from your authenticator app.'))
+
+export const SecondFactorCode = z.strictObject({ code: SixDigits })
+
+export const RecoveryCodeRequest = z.strictObject({
+  recoveryCode: z
+    .string({ error: 'Enter a recovery code.' })
+    .check(z.trim(), z.minLength(1, 'Enter a recovery code.'), z.maxLength(64)),
+})
+
+/** The second step of signing in: a code from the authenticator app, or one recovery code. */
+export const SecondFactorRequest = z.union([SecondFactorCode, RecoveryCodeRequest])
+export type SecondFactorRequest = z.output<typeof SecondFactorRequest>
+
+export const SecondFactorConfirmRequest = SecondFactorCode
+export type SecondFactorConfirmRequest = z.output<typeof SecondFactorConfirmRequest>
+
+/** What enrolment shows: the key as a QR code (a data: URL) and as text. */
+export interface SecondFactorEnrolment {
+  secret: string
+  uri: string
+  qrCode: string
+}
+
 export interface SessionUser {
   id: number
   email: string
@@ -40,4 +66,10 @@ export interface SessionUser {
   roles: Role[]
   organisationId: number | null
   mustChangePassword: boolean
+  /** signed in with a password only, and a second factor is required: set one up first */
+  secondFactorSetupRequired: boolean
+  secondFactorEnrolled: boolean
 }
+
+/** The answer to a sign-in: the person, or the request for a second factor. */
+export type SignInAnswer = { user: SessionUser } | { secondFactorRequired: true }

@@ -6,6 +6,10 @@ const organisationFields = {
   name: trimmed(191, 'Name'),
   contactName: z._default(optionalText(191, 'Contact name'), null),
   contactEmail: z._default(z.nullable(Email), null),
+  requiresSecondFactor: z._default(
+    z.boolean({ error: 'Say whether two-factor sign-in is required.' }),
+    false,
+  ),
 }
 
 export const OrganisationCreate = z.strictObject(organisationFields)
@@ -23,5 +27,7 @@ export interface Organisation {
   contactName: string | null
   contactEmail: string | null
   active: boolean
+  /** its people must sign in with a second factor (staff always do) */
+  requiresSecondFactor: boolean
   createdAt: string
 }

@@ -55,6 +55,9 @@ export interface Person {
   organisationId: number | null
   active: boolean
   mustChangePassword: boolean
+  secondFactorEnrolled: boolean
+  /** staff always; a client when their organisation says so */
+  secondFactorRequired: boolean
   lastSignInAt: string | null
   createdAt: string
 }

@@ -36,7 +36,9 @@ export function isSessionProblem(error: unknown): boolean {
   return (
     error instanceof ApiError &&
     ((error.status === 401 && error.code === 'unauthenticated') ||
-      (error.status === 403 && error.code === 'password_change_required'))
+      (error.status === 403 &&
+        (error.code === 'password_change_required' ||
+          error.code === 'second_factor_setup_required')))
   )
 }
 

@@ -30,3 +30,8 @@ export async function resetPassword(id: number): Promise<PersonWithOneTimePasswo
   )
   return data
 }
+
+export async function resetSecondFactor(id: number): Promise<Person> {
+  const { data } = await request<{ data: Person }>('POST', `/people/${id}/reset-second-factor`)
+  return data
+}

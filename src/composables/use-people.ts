@@ -6,7 +6,7 @@ import type { PersonDialogSave } from '@/components/people/PersonDialog.vue'
 import { useOrganisationsStore } from '@/stores/organisations'
 import type { Person, PersonWithOneTimePassword } from '../../shared/schemas/people'
 
-/** The people page: the list, adding and editing, (de)activating and password resets. */
+/** The people page: the list, adding and editing, (de)activating, password and second-factor resets. */
 export function usePeople() {
   const confirm = useConfirm()
   const toast = useToast()
@@ -60,6 +60,19 @@ export function usePeople() {
     })
   }
 
+  function resetSecondFactor(person: Person): void {
+    confirm.require({
+      header: 'Reset two-factor sign-in',
+      message: `Remove ${person.name}’s second factor? They set up a new one at their next sign-in.`,
+      acceptProps: { label: 'Reset', 'data-testid': 'confirm-reset-second-factor' },
+      rejectProps: { label: 'Cancel', severity: 'secondary', outlined: true },
+      accept: async () => {
+        replace(await peopleApi.resetSecondFactor(person.id))
+        toast.add({ severity: 'success', summary: 'Second factor removed', life: 4000 })
+      },
+    })
+  }
+
   function setActive(person: Person, active: boolean): void {
     const change = async () => {
       const { email, name, roles, organisationId } = person
@@ -82,5 +95,14 @@ export function usePeople() {
     })
   }
 
-  return { people, loading, issued, organisations, save, resetPassword, setActive }
+  return {
+    people,
+    loading,
+    issued,
+    organisations,
+    save,
+    resetPassword,
+    resetSecondFactor,
+    setActive,
+  }
 }

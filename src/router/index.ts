@@ -39,6 +39,12 @@ export const router = createRouter({
       meta: { title: 'Set password' },
     },
     {
+      path: '/second-factor',
+      name: 'second-factor-setup',
+      component: () => import('@/views/SecondFactorSetupView.vue'),
+      meta: { title: 'Two-factor sign-in' },
+    },
+    {
       path: '/cases',
       name: 'cases',
       component: () => import('@/views/CaseListView.vue'),
@@ -101,10 +107,18 @@ export const router = createRouter({
       name: 'mail-sent',
       component: () => import('@/views/MailSentView.vue'),
       meta: { roles: ADMINS, title: 'Mail sent' },
+    },
+    {
       path: '/admin/laboratory',
       name: 'laboratory',
       component: () => import('@/views/LaboratorySettingsView.vue'),
       meta: { roles: ADMINS, title: 'Laboratory' },
+    },
+    {
+      path: '/admin/security-events',
+      name: 'security-events',
+      component: () => import('@/views/SecurityEventsView.vue'),
+      meta: { roles: ADMINS, title: 'Security trail' },
     },
     {
       path: '/:pathMatch(.*)*',

@@ -27,7 +27,8 @@ function withReturn(name: string, to: RouteLocationNormalized): RouteLocationRaw
 
 /**
  * Route guards by `meta.public` and `meta.roles`, and the app's answer when the API says the
- * session ended (back to sign-in) or a new password is due (to the set-password page).
+ * session ended (back to sign-in), a new password is due (to the set-password page) or a second
+ * factor must be set up (to its page).
  */
 export function installSessionGuard(router: Router): void {
   router.beforeEach(async (to) => {
@@ -41,6 +42,13 @@ export function installSessionGuard(router: Router): void {
     if (user.mustChangePassword && to.name !== 'set-password') {
       return withReturn('set-password', to)
     }
+    if (
+      !user.mustChangePassword &&
+      user.secondFactorSetupRequired &&
+      to.name !== 'second-factor-setup'
+    ) {
+      return withReturn('second-factor-setup', to)
+    }
     if (to.meta.roles && !session.hasRole(...to.meta.roles)) return notFound(to)
     return true
   })
@@ -49,6 +57,12 @@ export function installSessionGuard(router: Router): void {
     const current = router.currentRoute.value
     if (error.code === 'password_change_required') {
       if (current.name !== 'set-password') void router.push(withReturn('set-password', current))
+      return
+    }
+    if (error.code === 'second_factor_setup_required') {
+      if (current.name !== 'second-factor-setup') {
+        void router.push(withReturn('second-factor-setup', current))
+      }
       return
     }
     useSessionStore().forget()

@@ -2,7 +2,12 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import * as authApi from '@/api/auth'
 import { refreshCsrfToken } from '@/api/client'
-import type { ChangePasswordRequest, LoginRequest, SessionUser } from '../../shared/schemas/auth'
+import type {
+  ChangePasswordRequest,
+  LoginRequest,
+  SecondFactorRequest,
+  SessionUser,
+} from '../../shared/schemas/auth'
 import type { Role } from '../../shared/schemas/roles'
 import { resetAllStores } from './reset-all'
 
@@ -35,11 +40,27 @@ export const useSessionStore = defineStore('session', () => {
     return loading
   }
 
-  async function signIn(credentials: LoginRequest): Promise<SessionUser> {
+  /** The password step: the person, or null when a second factor is asked for next. */
+  async function signIn(credentials: LoginRequest): Promise<SessionUser | null> {
     resetAllStores()
-    user.value = await authApi.signIn(credentials)
+    const answer = await authApi.signIn(credentials)
+    if ('secondFactorRequired' in answer) return null
+    user.value = answer.user
     loaded.value = true
     return user.value
+  }
+
+  async function completeSignIn(proof: SecondFactorRequest): Promise<SessionUser> {
+    user.value = await authApi.completeSignIn(proof)
+    loaded.value = true
+    return user.value
+  }
+
+  /** Confirms the new second factor; answers the recovery codes to show once. */
+  async function confirmSecondFactor(code: string): Promise<string[]> {
+    const { user: updated, recoveryCodes } = await authApi.confirmEnrolment(code)
+    user.value = updated
+    return recoveryCodes
   }
 
   async function signOut(): Promise<void> {
@@ -72,6 +93,8 @@ export const useSessionStore = defineStore('session', () => {
     hasRole,
     ensureLoaded,
     signIn,
+    completeSignIn,
+    confirmSecondFactor,
     signOut,
     forget,
     changePassword,

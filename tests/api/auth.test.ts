@@ -117,7 +117,9 @@ describe('rate limit on sign-in', () => {
   it('answers 429 after too many failures for one account, even from fresh sessions', async () => {
     const limited = createApp({
       db,
-      config: testConfig({ loginLimits: { perAccount: 3, perAddress: 100, windowMinutes: 15 } }),
+      config: testConfig({
+        loginLimits: { perAccount: 3, perAddress: 100, windowMinutes: 15, delayMaxSeconds: 1 },
+      }),
       clientDir: '/nonexistent',
     })
     const person = await makePerson(db, ['lab'])
@@ -135,7 +137,9 @@ describe('rate limit on sign-in', () => {
   it('answers 429 after too many failures from one address across accounts', async () => {
     const limited = createApp({
       db,
-      config: testConfig({ loginLimits: { perAccount: 100, perAddress: 2, windowMinutes: 15 } }),
+      config: testConfig({
+        loginLimits: { perAccount: 100, perAddress: 2, windowMinutes: 15, delayMaxSeconds: 1 },
+      }),
       clientDir: '/nonexistent',
     })
     const first = await new ApiSession(limited).signIn('a@example.test', 'wrong password!')
@@ -220,7 +224,12 @@ describe('session lifetime', () => {
       .get('/api/auth/csrf')
       .set('X-Forwarded-Proto', 'https')
       .expect(200)
-    expect(sessionCookie(response)).toMatch(/;\s*Secure/i)
+    const cookie = ([] as string[])
+      .concat(response.headers['set-cookie'] ?? [])
+      .find((line) => line.startsWith('__Host-fractolog.sid='))
+    expect(cookie).toMatch(/;\s*Secure/i)
+    expect(cookie).toMatch(/;\s*Path=\/(;|$)/i)
+    expect(cookie).not.toMatch(/Domain=/i)
   })
 })
 

@@ -2,6 +2,8 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { createServer } from 'node:net'
 import autocannon from 'autocannon'
 import { createDb } from '../../server/db/knex'
+import { DEFAULT_DEMO_TOTP_SECRET } from '../../seeds/demo'
+import { totpCode } from '../helpers/totp-code'
 import { resolveDatabase } from '../../server/db/database-url'
 import { runStep } from '../../scripts/run-step'
 import { BENCH_PASSWORD, seedBenchData } from './api-bench-seed'
@@ -56,27 +58,36 @@ function startChild(command: string, args: string[], env: NodeJS.ProcessEnv, rea
   })
 }
 
-async function signIn(base: string, email: string): Promise<string> {
-  const csrf = await fetch(`${base}/api/auth/csrf`)
-  const firstCookie = csrf.headers
+const cookiesOf = (response: Response) =>
+  response.headers
     .getSetCookie()
     .map((line) => line.split(';')[0])
     .join('; ')
+
+async function tokenFor(base: string, cookie: string): Promise<{ token: string; cookie: string }> {
+  const csrf = await fetch(`${base}/api/auth/csrf`, { headers: cookie ? { Cookie: cookie } : {} })
   const { data } = (await csrf.json()) as { data: { token: string } }
-  const login = await fetch(`${base}/api/auth/login`, {
+  return { token: data.token, cookie: cookiesOf(csrf) || cookie }
+}
+
+async function post(base: string, path: string, cookie: string, body: object) {
+  const { token, cookie: current } = await tokenFor(base, cookie)
+  const response = await fetch(`${base}${path}`, {
     method: 'POST',
-    headers: {
-      'Content-Type': 'application/json',
-      'X-CSRF-Token': data.token,
-      Cookie: firstCookie,
-    },
-    body: JSON.stringify({ email, password: BENCH_PASSWORD }),
+    headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token, Cookie: current },
+    body: JSON.stringify(body),
   })
-  if (login.status !== 200) throw new Error(`sign-in of ${email} answered ${login.status}`)
-  return login.headers
-    .getSetCookie()
-    .map((line) => line.split(';')[0])
-    .join('; ')
+  if (response.status !== 200) throw new Error(`${path} for the bench answered ${response.status}`)
+  return { response, cookie: cookiesOf(response) || current }
+}
+
+/** Password, then the demo accounts' shared second-factor key (RFC 6238 code). */
+async function signIn(base: string, email: string): Promise<string> {
+  const login = await post(base, '/api/auth/login', '', { email, password: BENCH_PASSWORD })
+  const answer = (await login.response.json()) as { data: { secondFactorRequired?: boolean } }
+  if (!answer.data.secondFactorRequired) return login.cookie
+  const code = totpCode(DEFAULT_DEMO_TOTP_SECRET)
+  return (await post(base, '/api/auth/second-factor', login.cookie, { code })).cookie
 }
 
 function percentile(sorted: number[], share: number): number {

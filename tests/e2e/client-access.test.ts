@@ -1,6 +1,13 @@
 import { request } from 'playwright-core'
 import { describe, expect, inject, it } from 'vitest'
-import { screenshot, signIn, unexpectedErrors, waitForTable, useBrowser } from '../helpers/browser'
+import {
+  apiSignIn,
+  screenshot,
+  signIn,
+  unexpectedErrors,
+  waitForTable,
+  useBrowser,
+} from '../helpers/browser'
 
 const browser = useBrowser()
 
@@ -8,12 +15,7 @@ const browser = useBrowser()
 async function caseIdOf(organisationName: string): Promise<number> {
   const api = await request.newContext({ baseURL: inject('baseUrl') })
   try {
-    const csrf = await (await api.get('/api/auth/csrf')).json()
-    const login = await api.post('/api/auth/login', {
-      headers: { 'X-CSRF-Token': csrf.data.token },
-      data: { email: 'investigator@demo.test', password: inject('demoPassword') },
-    })
-    expect(login.status()).toBe(200)
+    expect(await apiSignIn(api, 'investigator@demo.test', inject('demoPassword'))).toBe(200)
     const organisations = (await (await api.get('/api/organisations')).json()).data as {
       id: number
       name: string

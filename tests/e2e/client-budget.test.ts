@@ -6,7 +6,7 @@ import express from 'express'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { createDb } from '../../server/db/knex'
-import { useBrowser, waitForTable } from '../helpers/browser'
+import { secondFactorCodeFor, useBrowser, waitForTable } from '../helpers/browser'
 import {
   CLIENT_DIR,
   FIRST_VISIT_BUDGET,
@@ -79,6 +79,10 @@ describe('the first screens over the network', () => {
     await page.locator('#email').fill('investigator@demo.test')
     await page.locator('#password').fill(inject('demoPassword'))
     await page.getByTestId('sign-in-submit').click()
+    await page
+      .locator('#second-factor-code')
+      .fill(await secondFactorCodeFor('investigator@demo.test'))
+    await page.getByTestId('second-factor-submit').click()
     await showCaseList(page)
 
     const scripts = scriptsOf(fetched)

@@ -3,18 +3,20 @@ import { describe, expect, inject, it } from 'vitest'
 import { todayIso } from '../../shared/schemas/dates'
 import { plainJpeg } from '../factories/images'
 import { seriousAccessibilityProblems } from '../helpers/accessibility'
-import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
+import {
+  apiSignIn,
+  screenshot,
+  signIn,
+  unexpectedErrors,
+  useBrowser,
+  waitForTable,
+} from '../helpers/browser'
 
 const browser = useBrowser()
 
 async function apiAs(email: string): Promise<APIRequestContext> {
   const api = await request.newContext({ baseURL: inject('baseUrl') })
-  const csrf = await (await api.get('/api/auth/csrf')).json()
-  const login = await api.post('/api/auth/login', {
-    headers: { 'X-CSRF-Token': csrf.data.token },
-    data: { email, password: inject('demoPassword') },
-  })
-  expect(login.status()).toBe(200)
+  expect(await apiSignIn(api, email, inject('demoPassword'))).toBe(200)
   return api
 }
 

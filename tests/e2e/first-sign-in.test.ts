@@ -1,10 +1,11 @@
 import { describe, expect, inject, it } from 'vitest'
-import { screenshot, signIn, waitForTable, useBrowser } from '../helpers/browser'
+import { screenshot, signIn, unexpectedErrors, useBrowser, waitForTable } from '../helpers/browser'
+import { totpCode } from '../helpers/totp-code'
 
 const browser = useBrowser()
 
 describe('a new staff member', () => {
-  it('is added by an administrator, signs in with the one-time password and sets their own', async () => {
+  it('is added by an administrator, signs in with the one-time password, sets their own and a second factor', async () => {
     const page = browser().page
     const base = inject('baseUrl')
     const email = `lab.${Date.now()}@demo.test`
@@ -51,6 +52,28 @@ describe('a new staff member', () => {
     await screenshot(page, 'set-password')
     await page.getByTestId('set-password-submit').click()
 
+    // staff set up a second factor before anything else: the key as a QR code and as text
+    await page.waitForURL(/\/second-factor\?redirect=(%2F|\/)cases/)
+    const keyText = page.getByTestId('second-factor-key')
+    await expect.poll(() => keyText.isVisible()).toBe(true)
+    const key = ((await keyText.textContent()) ?? '').trim()
+    expect(key).toMatch(/^[A-Z2-7]{32}$/)
+    expect(await page.locator('img[alt="QR code of the key"]').getAttribute('src')).toMatch(
+      /^data:image\/png;base64,/,
+    )
+    await page.goto(`${base}/cases`)
+    await page.waitForURL(/\/second-factor/)
+    await expect.poll(() => keyText.isVisible()).toBe(true)
+    const newKey = ((await keyText.textContent()) ?? '').trim()
+    await screenshot(page, 'second-factor-setup')
+    // the code an authenticator app would show, computed here from the key (RFC 6238)
+    await page.locator('#enrol-code').fill(totpCode(newKey))
+    await page.getByTestId('confirm-second-factor').click()
+    const codes = page.getByTestId('recovery-codes').locator('li')
+    await expect.poll(() => codes.count()).toBe(10)
+    await screenshot(page, 'recovery-codes')
+    await page.getByTestId('recovery-codes-kept').click()
+
     await page.waitForURL(`${base}/cases`)
     await expect
       .poll(() => page.getByTestId('signed-in-name').textContent())
@@ -59,6 +82,23 @@ describe('a new staff member', () => {
     await waitForTable(page)
     await screenshot(page, 'first-case-list')
 
-    expect(browser().errors).toEqual([])
+    // the next sign-in asks for the code
+    await page.getByTestId('sign-out').click()
+    await page.waitForURL(`${base}/sign-in`)
+    await page.locator('#email').fill(email)
+    await page.locator('#password').fill(ownPassword)
+    await page.getByTestId('sign-in-submit').click()
+    await page.getByTestId('second-factor-form').waitFor()
+    await page.locator('#second-factor-code').fill('000000')
+    await page.getByTestId('second-factor-submit').click()
+    await expect.poll(() => page.getByTestId('form-error').textContent()).toContain('not correct')
+    await screenshot(page, 'second-factor-refused')
+    await page.locator('#second-factor-code').fill(totpCode(newKey, Date.now() + 30_000))
+    await page.getByTestId('second-factor-submit').click()
+    await page.waitForURL(`${base}/`)
+    expect(await page.getByTestId('signed-in-name').textContent()).toBe('Aino Vesterlund')
+
+    const expected = [{ status: 401, path: '/auth/second-factor' }]
+    expect(unexpectedErrors(browser().errors, expected)).toEqual([])
   })
 })

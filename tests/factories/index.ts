@@ -2,6 +2,8 @@ import type { Knex } from 'knex'
 import { CaseCreate } from '../../shared/schemas/cases'
 import type { Role } from '../../shared/schemas/roles'
 import { hashPassword } from '../../server/auth/passwords'
+import { newTotpSecret } from '../../server/auth/totp'
+import { rememberSecondFactorKey } from '../helpers/second-factor-keys'
 import { createCaseService } from '../../server/services/cases'
 
 let sequence = 0
@@ -23,10 +25,21 @@ export interface TestPerson {
 export async function makePerson(
   db: Knex,
   roles: Role[],
-  options: { organisationId?: number; mustChangePassword?: boolean; active?: boolean } = {},
+  options: {
+    organisationId?: number
+    mustChangePassword?: boolean
+    active?: boolean
+    /** enrolled with a second factor: staff are by default, as they must be to work */
+    secondFactor?: boolean
+  } = {},
 ): Promise<TestPerson> {
   const email = `${unique(roles.join('-'))}@example.test`.toLowerCase()
+  const enrolled = options.secondFactor ?? roles.some((role) => role !== 'client')
+  const secret = enrolled ? newTotpSecret() : null
+  if (secret) rememberSecondFactorKey(db, email, secret)
   const [id] = (await db('users').insert({
+    secondFactorSecret: secret,
+    secondFactorEnrolledAt: secret ? new Date() : null,
     email,
     name: `Test ${roles.join(' ')}`,
     passwordHash: await hashPassword(TEST_PASSWORD, 10),

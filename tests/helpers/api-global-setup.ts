@@ -1,6 +1,6 @@
 import { createDb } from '../../server/db/knex'
 import { dropAllTables, migrateLatest, rollbackAll } from '../../server/db/migrations'
-import { testDatabaseUrl } from './test-db'
+import { grantTestApplicationAccount, testDatabaseUrl } from './test-db'
 
 /**
  * Once per API run: start from an empty database, and prove every migration's `down` by going
@@ -13,6 +13,7 @@ export default async function setup(): Promise<void> {
     await migrateLatest(db)
     await rollbackAll(db)
     await migrateLatest(db)
+    await grantTestApplicationAccount(db)
   } finally {
     await db.destroy()
   }

@@ -1,5 +1,6 @@
 import type { Express } from 'express'
 import request from 'supertest'
+import { currentCodeFor } from './second-factor-keys'
 
 export type Agent = ReturnType<typeof request.agent>
 
@@ -24,7 +25,24 @@ export class ApiSession {
     return (response.body.data.user?.id as number | undefined) ?? null
   }
 
+  /**
+   * Signs in fully, as a person would: the password, then (when the server asks for it) the
+   * current code of the person's second factor. Answers the last step's response.
+   */
   async signIn(email: string, password: string) {
+    await this.refreshToken()
+    const response = await this.post('/api/auth/login', { email, password })
+    if (response.status !== 200) return response
+    await this.refreshToken()
+    if (!response.body.data.secondFactorRequired) return response
+    const code = await currentCodeFor(email)
+    const completed = await this.post('/api/auth/second-factor', { code })
+    if (completed.status === 200) await this.refreshToken()
+    return completed
+  }
+
+  /** Only the password step: the session is then half signed in, awaiting a second factor. */
+  async signInWithPasswordOnly(email: string, password: string) {
     await this.refreshToken()
     const response = await this.post('/api/auth/login', { email, password })
     if (response.status === 200) await this.refreshToken()

@@ -1,8 +1,12 @@
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
-import { afterAll, beforeAll, expect } from 'vitest'
+import { chromium, type APIRequestContext, type BrowserContext, type Page } from 'playwright-core'
+import type { Knex } from 'knex'
+import { afterAll, beforeAll, expect, inject } from 'vitest'
+import { createDb } from '../../server/db/knex'
+import { PEOPLE } from '../../seeds/demo-scenario'
+import { currentCodeFor } from './second-factor-keys'
 
 export const SCREENSHOT_DIR = resolve(import.meta.dirname, '../e2e/screenshots')
 
@@ -84,12 +88,60 @@ export function unexpectedErrors(errors: string[], expected: ExpectedFailure[]):
   return errors.filter((error) => !patterns.some((pattern) => pattern.test(error)))
 }
 
-/** Signs in through the sign-in page and waits until the app has left it. */
+let e2eDb: Knex | undefined
+
+/**
+ * The person's current second-factor code: the demo accounts share the key DEMO_TOTP_SECRET,
+ * anyone else's is read from the browser tests' database.
+ */
+export async function secondFactorCodeFor(email: string): Promise<string> {
+  const url = process.env.E2E_DATABASE_URL
+  if (!url) throw new Error('E2E_DATABASE_URL is not set: run the tests through `npm test`')
+  e2eDb ??= createDb(url, { min: 0, max: 1, idleTimeoutMillis: 1_000 })
+  const demo = PEOPLE.some((person) => person.email === email.toLowerCase())
+  return currentCodeFor(email, { db: e2eDb, secret: demo ? inject('demoTotpSecret') : undefined })
+}
+
+/**
+ * Signs a playwright API context in fully (password, then the second factor's code when asked),
+ * for journeys that prepare data through the API; answers the last step's status.
+ */
+export async function apiSignIn(
+  api: APIRequestContext,
+  email: string,
+  password: string,
+): Promise<number> {
+  const token = async () => (await (await api.get('/api/auth/csrf')).json()).data.token as string
+  const login = await api.post('/api/auth/login', {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { email, password },
+  })
+  if (login.status() !== 200 || !(await login.json()).data.secondFactorRequired) {
+    return login.status()
+  }
+  const completed = await api.post('/api/auth/second-factor', {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { code: await secondFactorCodeFor(email) },
+  })
+  return completed.status()
+}
+
+/**
+ * Signs in through the sign-in page, with the second factor's code when the page asks for it,
+ * and waits until the app has left the page.
+ */
 export async function signIn(page: Page, baseUrl: string, email: string, password: string) {
   await page.goto(`${baseUrl}/sign-in`)
   await page.locator('#email').fill(email)
   await page.locator('#password').fill(password)
   await page.getByTestId('sign-in-submit').click()
+  const codeField = page.locator('#second-factor-code')
+  const leftSignIn = () => new URL(page.url()).pathname !== '/sign-in'
+  await expect.poll(async () => leftSignIn() || (await codeField.isVisible())).toBe(true)
+  if (!leftSignIn()) {
+    await codeField.fill(await secondFactorCodeFor(email))
+    await page.getByTestId('second-factor-submit').click()
+  }
   await page.waitForURL((url) => url.pathname !== '/sign-in')
 }
 

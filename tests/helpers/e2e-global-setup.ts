@@ -13,27 +13,32 @@ import { createMailSender } from '../../server/mail/mail-sender'
 import { createSmtpTransport } from '../../server/mail/smtp-transport'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { testConfig } from './test-config'
-import { testDatabaseUrl } from './test-db'
+import { applicationDatabaseUrl, grantTestApplicationAccount, testDatabaseUrl } from './test-db'
 
 declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
     demoPassword: string
+    demoTotpSecret: string
   }
 }
 
 /** Serves the built client and the API on a free loopback port, on a freshly seeded database. */
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
-  const db = createDb(testDatabaseUrl('E2E_DATABASE_URL'))
-  await dropAllTables(db)
-  await migrateLatest(db)
+  const owner = createDb(testDatabaseUrl('E2E_DATABASE_URL'))
+  await dropAllTables(owner)
+  await migrateLatest(owner)
+  await grantTestApplicationAccount(owner, 'E2E')
   // uploads of the browser journeys go to a folder of their own, never the checkout's
   const uploadsDir = mkdtempSync(join(tmpdir(), 'fractolog-e2e-uploads-'))
   const storage = createLocalStorage(uploadsDir)
   // demo mode, as `npm start`: the "Mail sent" page reads the local SMTP server's mailbox
   const config = testConfig({ uploadsDir, demoData: true })
-  const { demoPassword: password, passwordCost } = config
-  await seedDemoIfEmpty(db, { password, passwordCost, storage })
+  const { demoPassword: password, passwordCost, demoTotpSecret } = config
+  await seedDemoIfEmpty(owner, { password, passwordCost, storage, totpSecret: demoTotpSecret })
+  await owner.destroy()
+  // the server runs on the application's account, as `npm start` runs it
+  const db = createDb(applicationDatabaseUrl('E2E') ?? testDatabaseUrl('E2E_DATABASE_URL'))
   const clientDir = resolve(import.meta.dirname, '../../dist')
   const smtp = await startLocalSmtp(db)
   const sender = createMailSender({
@@ -52,6 +57,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const { port } = server.address() as AddressInfo
   project.provide('baseUrl', `http://127.0.0.1:${port}`)
   project.provide('demoPassword', config.demoPassword)
+  project.provide('demoTotpSecret', config.demoTotpSecret)
   return async () => {
     await new Promise((done) => server.close(done))
     await sender.stop()

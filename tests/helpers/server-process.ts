@@ -24,20 +24,23 @@ export async function startServerProcess(
   databaseUrl: string,
   uploadsDir: string,
   env: NodeJS.ProcessEnv = {},
+  /** `bare`: nothing but PATH and the address, database and folder (no demo settings at all) */
+  options: { bare?: boolean } = {},
 ): Promise<ServerProcess> {
   const port = await freePort()
+  const inherited = options.bare
+    ? { PATH: process.env.PATH }
+    : { ...process.env, DEMO_DATA: 'false', PASSWORD_COST: '10' }
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: repoRoot,
     env: {
-      ...process.env,
+      ...inherited,
       NODE_ENV: 'development',
       HOST: '127.0.0.1',
       PORT: String(port),
       DATABASE_URL: databaseUrl,
       UPLOADS_DIR: uploadsDir,
-      DEMO_DATA: 'false',
       LOG_REQUESTS: 'false',
-      PASSWORD_COST: '10',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -40,4 +40,27 @@ describe('configuration from the environment', () => {
   it('requires a session secret in production', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/)
   })
+
+  it('refuses a password cost below the OWASP figure (scrypt N = 2^17) in production', () => {
+    // OWASP Password Storage Cheat Sheet: scrypt N=2^17, r=8, p=1 at least
+    const production = { NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40) }
+    expect(() => loadConfig({ ...production, PASSWORD_COST: '16' })).toThrow(/PASSWORD_COST/)
+    expect(loadConfig({ ...production, PASSWORD_COST: '17' }).passwordCost).toBe(17)
+    expect(loadConfig({ PASSWORD_COST: '12' }).passwordCost).toBe(12)
+  })
+
+  it('trusts X-Forwarded-For from loopback only unless TRUST_PROXY says otherwise', () => {
+    expect(loadConfig({}).trustProxy).toBe('loopback')
+    expect(loadConfig({ TRUST_PROXY: 'false' }).trustProxy).toBe(false)
+    expect(loadConfig({ TRUST_PROXY: '2' }).trustProxy).toBe(2)
+    expect(loadConfig({ TRUST_PROXY: '10.0.0.5' }).trustProxy).toBe('10.0.0.5')
+  })
+
+  it('gives the demo accounts the shared key FRACTOLOGDEMOKEY unless DEMO_TOTP_SECRET names one', () => {
+    expect(loadConfig({}).demoTotpSecret).toBe('FRACTOLOGDEMOKEY')
+    expect(loadConfig({ DEMO_TOTP_SECRET: 'JBSWY3DPEHPK3PXP' }).demoTotpSecret).toBe(
+      'JBSWY3DPEHPK3PXP',
+    )
+    expect(() => loadConfig({ DEMO_TOTP_SECRET: 'not base32!' })).toThrow(/DEMO_TOTP_SECRET/)
+  })
 })

@@ -19,6 +19,13 @@ const actor = (role: Role, organisationId: number | null = null): Actor => ({
 // Every role × action without a case: the expected answer is written out in full.
 const GLOBAL: Record<GlobalAction, Record<Role, boolean>> = {
   'people.manage': { admin: true, investigator: false, lab: false, reviewer: false, client: false },
+  'security.audit': {
+    admin: true,
+    investigator: false,
+    lab: false,
+    reviewer: false,
+    client: false,
+  },
   'organisations.manage': {
     admin: true,
     investigator: false,

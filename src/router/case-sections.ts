@@ -56,7 +56,13 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     roles: STAFF,
     component: () => import('@/views/case/CaseMechanicalTestsView.vue'),
   },
-  { name: 'case-findings', path: 'findings', label: 'Findings', roles: STAFF, component: notYet },
+  {
+    name: 'case-findings',
+    path: 'findings',
+    label: 'Findings',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseFindingsView.vue'),
+  },
   { name: 'case-review', path: 'review', label: 'Review', roles: STAFF, component: notYet },
   {
     name: 'case-activity',

@@ -9,7 +9,12 @@ export interface LocalFindingsCopy {
   /** the server version the text was written on */
   baseVersion: number
   keptAt: string
+  /** the tab that kept it: a tab drops only its own copy, never another tab's unsaved text */
+  tab: string
 }
+
+/** This tab's mark on the copies it keeps. */
+export const THIS_TAB = `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`
 
 /** `draft`: the text being written; `set-aside`: the writer's own text beside a newer saved draft */
 export type CopySlot = 'draft' | 'set-aside'
@@ -35,7 +40,12 @@ export function keepLocalCopy(
   slot: CopySlot = 'draft',
 ): boolean {
   try {
-    const copy: LocalFindingsCopy = { doc, baseVersion, keptAt: new Date().toISOString() }
+    const copy: LocalFindingsCopy = {
+      doc,
+      baseVersion,
+      keptAt: new Date().toISOString(),
+      tab: THIS_TAB,
+    }
     localStorage.setItem(keyOf(caseId, slot), JSON.stringify(copy))
     return true
   } catch {
@@ -43,8 +53,10 @@ export function keepLocalCopy(
   }
 }
 
-export function dropLocalCopy(caseId: number, slot: CopySlot = 'draft'): void {
+/** Drops this tab's copy once the server has the text (or the writer is done merging). */
+export function dropLocalCopy(caseId: number, slot: CopySlot = 'draft', anyTab = false): void {
   try {
+    if (!anyTab && readLocalCopy(caseId, slot)?.tab !== THIS_TAB) return
     localStorage.removeItem(keyOf(caseId, slot))
   } catch {
     // nothing kept, nothing to drop

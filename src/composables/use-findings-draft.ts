@@ -41,14 +41,19 @@ export function useFindingsDraft(caseId: Ref<number>, editable: Ref<boolean>, ed
   async function load(): Promise<void> {
     const fresh = await fetchFindings(caseId.value)
     adopt(fresh)
-    setAside.value = readLocalCopy(caseId.value, 'set-aside')?.doc
+    const aside = readLocalCopy(caseId.value, 'set-aside')
+    // copies from an earlier visit become this tab's, so this tab may drop them when done
+    if (aside) keepLocalCopy(caseId.value, aside.doc, aside.baseVersion, 'set-aside')
+    setAside.value = aside?.doc
     const local = editable.value ? readLocalCopy(caseId.value) : null
     if (!local || sameDoc(local.doc, fresh.doc)) {
-      if (local) dropLocalCopy(caseId.value)
+      // the server has this text already: nothing to keep
+      if (local) dropLocalCopy(caseId.value, 'draft', true)
       editor.replace(fresh.doc)
       state.value = 'saved'
       return
     }
+    keepLocalCopy(caseId.value, local.doc, local.baseVersion)
     editor.replace(local.doc)
     if (local.baseVersion === fresh.version) {
       state.value = 'pending'

@@ -1,10 +1,8 @@
 import { mergeAttributes, Node } from '@tiptap/core'
-import { VueNodeViewRenderer } from '@tiptap/vue-3'
 import { isLiveBlockKind } from '../../../../shared/findings/live-blocks'
-import FigureNodeView from './FigureNodeView.vue'
-import FigureRefNodeView from './FigureRefNodeView.vue'
-import LiveBlockNodeView from './LiveBlockNodeView.vue'
-import OpinionNodeView from './OpinionNodeView.vue'
+
+// The schema of the draft's own nodes, without their views, so tests can check it without a
+// browser; `findings-extensions.ts` adds the Vue views.
 
 const dataAttr = (name: string, parse: (value: string | null) => unknown = (v) => v) => ({
   parseHTML: (element: HTMLElement) => parse(element.getAttribute(`data-${name}`)),
@@ -40,7 +38,6 @@ export const Figure = Node.create({
       'data-caption': node.attrs.caption,
     }),
   ],
-  addNodeView: () => VueNodeViewRenderer(FigureNodeView),
 })
 
 /** "Figure n" in the text, following its figure's number. */
@@ -56,7 +53,6 @@ export const FigureRef = Node.create({
   parseHTML: () => [{ tag: 'span[data-figure-ref]' }],
   renderHTML: ({ node }) => ['span', { 'data-figure-ref': node.attrs.figureId }],
   renderText: () => 'Figure',
-  addNodeView: () => VueNodeViewRenderer(FigureRefNodeView),
 })
 
 /** The case's current data of one kind: tensile results, service history, items. */
@@ -76,7 +72,6 @@ export const LiveBlock = Node.create({
   },
   parseHTML: () => [{ tag: 'section[data-live-block]' }],
   renderHTML: ({ node }) => ['section', { 'data-live-block': node.attrs.kind }],
-  addNodeView: () => VueNodeViewRenderer(LiveBlockNodeView),
 })
 
 /** An opinion: its paragraphs, the observations it cites and the assumptions it makes. */
@@ -110,5 +105,4 @@ export const Opinion = Node.create({
     },
     0,
   ],
-  addNodeView: () => VueNodeViewRenderer(OpinionNodeView),
 })

@@ -9,23 +9,23 @@ const browser = useBrowser()
  * or critical finding. Then sign-in, the case list and a case page used with the keyboard only.
  */
 
-type Screen = 'home' | 'cases' | 'case' | 'new case' | 'people' | 'organisations'
+type Screen = 'home' | 'cases' | 'case' | 'findings' | 'new case' | 'people' | 'organisations'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
     email: 'admin@demo.test',
     screens: ['home', 'cases', 'case', 'new case', 'people', 'organisations'],
   },
-  { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'new case'] },
+  { email: 'investigator@demo.test', screens: ['home', 'cases', 'case', 'findings', 'new case'] },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
-  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case'] },
+  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case', 'findings'] },
   { email: 'client@demo.test', screens: ['home', 'cases', 'case'] },
 ]
 
 async function openScreen(screen: Screen): Promise<void> {
   const page = browser().page
   const base = inject('baseUrl')
-  const addresses: Record<Exclude<Screen, 'case'>, string> = {
+  const addresses: Record<Exclude<Screen, 'case' | 'findings'>, string> = {
     home: '/',
     cases: '/cases',
     'new case': '/cases/new',
@@ -36,6 +36,15 @@ async function openScreen(screen: Screen): Promise<void> {
     await openScreen('cases')
     await page.getByTestId('case-table').locator('tbody a').first().click()
     await page.getByTestId('case-page').waitFor()
+  } else if (screen === 'findings') {
+    // a drafting demo case with figures and opinions: the editor for its lead, the read view else
+    await page.goto(`${base}/cases?q=${encodeURIComponent('pump shaft')}`)
+    await page.getByTestId('case-table').getByText('Transfer pump shaft fracture').click()
+    await page.getByTestId('section-case-findings').click()
+    await page
+      .locator('[data-testid="findings-text"], [data-testid="findings-html"]')
+      .first()
+      .waitFor()
   } else {
     await page.goto(`${base}${addresses[screen]}`)
     await page.locator('main h1').first().waitFor()

@@ -214,5 +214,5 @@ describe('the findings draft', () => {
 
     const expected = [{ status: 409, path: `/cases/${caseId}/findings` }]
     expect(unexpectedErrors(errors, expected)).toEqual([])
-  }, 120_000) // a long journey with a second browser for the lab
+  }, 180_000) // a long journey, with a second browser for the lab, on a shared machine
 })

@@ -104,16 +104,14 @@ async function insertFigure(page: Page, photoIndex: number, caption: string) {
 }
 
 const saved = (page: Page) =>
-  expect.poll(() => page.getByTestId('save-state').getAttribute('data-state'), {
-    timeout: 15_000,
-  })
+  expect.poll(() => page.getByTestId('save-state').getAttribute('data-state'))
 
 describe('the findings draft', () => {
   it('writes a discussion with figures, live results and cited opinions; a stale tab keeps its text', async () => {
     const { page, context, errors } = browser()
     const base = inject('baseUrl')
     // a step that cannot happen fails with its own message, well within the test's time
-    context.setDefaultTimeout(10_000)
+    context.setDefaultTimeout(20_000)
     await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
     const caseId = await caseWithEvidence(page, base)
     await page.goto(`${base}/cases/${caseId}/findings`)
@@ -137,7 +135,7 @@ describe('the findings draft', () => {
     await page.getByTestId('insert-live-block').click()
     await page.getByTestId('live-block-dialog').getByTestId('choice-confirm').click()
     const live = page.getByTestId('live-block')
-    await expect.poll(() => live.textContent(), { timeout: 15_000 }).toContain('L1')
+    await expect.poll(() => live.textContent()).toContain('L1')
     expect(await live.textContent()).toContain('Rm')
 
     // a conclusion citing two observations carries no flag
@@ -214,5 +212,5 @@ describe('the findings draft', () => {
 
     const expected = [{ status: 409, path: `/cases/${caseId}/findings` }]
     expect(unexpectedErrors(errors, expected)).toEqual([])
-  }, 180_000) // a long journey, with a second browser for the lab, on a shared machine
+  })
 })

@@ -7,6 +7,7 @@ import { createCaseService } from '../server/services/cases'
 import { createServiceEventService } from '../server/services/service-events'
 import { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { FileStorage } from '../server/storage/file-storage'
+import { seedDemoFindings } from './demo-findings'
 import { seedDemoTensile } from './demo-tensile'
 import { seedDemoReport } from './demo-reports'
 import {
@@ -137,6 +138,8 @@ async function seedCases(
     }
     if (demo.tensileTested && demo.lab)
       await seedDemoTensile(trx, created.id, actors.get(demo.lab)!, storage, daysFrom(today, -20))
+    if (demo.status === 'drafting')
+      await seedDemoFindings(trx, created.id, demo.title, lead, storage, today)
     if (demo.report && demo.reviewer) {
       const people = {
         lead,

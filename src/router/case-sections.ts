@@ -25,8 +25,6 @@ const evidenceChildren: RouteRecordRaw[] = [...EVIDENCE_SECTIONS, ...EVIDENCE_PA
   }),
 )
 
-const notYet = () => import('@/views/case/CaseSectionEmptyView.vue')
-
 /** The sections of the case workspace, in the order of the work. */
 export const CASE_SECTIONS: readonly CaseSection[] = [
   {
@@ -56,7 +54,13 @@ export const CASE_SECTIONS: readonly CaseSection[] = [
     roles: STAFF,
     component: () => import('@/views/case/CaseMechanicalTestsView.vue'),
   },
-  { name: 'case-findings', path: 'findings', label: 'Findings', roles: STAFF, component: notYet },
+  {
+    name: 'case-findings',
+    path: 'findings',
+    label: 'Findings',
+    roles: STAFF,
+    component: () => import('@/views/case/CaseFindingsView.vue'),
+  },
   {
     name: 'case-review',
     path: 'review',

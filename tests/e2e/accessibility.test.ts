@@ -24,6 +24,7 @@ type Screen =
   | 'mail sent'
   | 'laboratory'
   | 'security trail'
+  | 'findings'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
@@ -33,12 +34,12 @@ const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   { email: 'admin@demo.test', screens: ['organisations', 'outbox', 'mail sent', 'laboratory'] },
   {
     email: 'investigator@demo.test',
-    screens: ['home', 'cases', 'case', 'new case', 'case reports'],
+    screens: ['home', 'cases', 'case', 'findings', 'new case', 'case reports'],
   },
   // a test of its own: many screens with axe each take too long for one test on a busy machine
   { email: 'admin@demo.test', screens: ['security trail'] },
   { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
-  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case', 'review'] },
+  { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case', 'findings', 'review'] },
   { email: 'client@demo.test', screens: ['home', 'cases', 'case', 'reading room', 'report'] },
 ]
 
@@ -56,7 +57,7 @@ async function openScreen(screen: Screen): Promise<void> {
   const page = browser().page
   const base = inject('baseUrl')
   const addresses: Record<
-    Exclude<Screen, 'case' | 'review' | 'case reports' | 'report'>,
+    Exclude<Screen, 'case' | 'findings' | 'review' | 'case reports' | 'report'>,
     string
   > = {
     home: '/',
@@ -80,6 +81,15 @@ async function openScreen(screen: Screen): Promise<void> {
     await openScreen('cases')
     await page.getByTestId('case-table').locator('tbody a').first().click()
     await page.getByTestId('case-page').waitFor()
+  } else if (screen === 'findings') {
+    // a drafting demo case with figures and opinions: the editor for its lead, the read view else
+    await page.goto(`${base}/cases?q=${encodeURIComponent('pump shaft')}`)
+    await page.getByTestId('case-table').getByText('Transfer pump shaft fracture').click()
+    await page.getByTestId('section-case-findings').click()
+    await page
+      .locator('[data-testid="findings-text"], [data-testid="findings-html"]')
+      .first()
+      .waitFor()
   } else {
     await page.goto(`${base}${addresses[screen]}`)
     await page.locator('main h1').first().waitFor()

@@ -81,20 +81,6 @@ export type Config = {
   sessionMaxHours: number
   /** scrypt cost exponent: N = 2^passwordCost (17 is the OWASP recommendation) */
   passwordCost: number
-  loginLimits: { perAccount: number; perAddress: number; windowMinutes: number }
-  mail: MailConfig
-}
-
-export interface MailConfig {
-  /** where the sender delivers; unset: notices wait in the outbox */
-  smtpUrl: string | undefined
-  from: string
-  /** waits between tries, in minutes; the last one repeats */
-  retryMinutes: number[]
-  /** a message still failing this long after it was queued is given up */
-  giveUpHours: number
-  /** how often the sender looks for due messages */
-  pollSeconds: number
   /**
    * Failed sign-ins (and second-factor codes): `perAccount` per account from one address and
    * `perAddress` from one address are refused with 429; failures for an account from anywhere
@@ -110,6 +96,19 @@ export interface MailConfig {
   passwordChangeLimit: number
   /** security-token requests per address in the window (each new visitor's writes a session) */
   csrfLimitPerAddress: number
+  mail: MailConfig
+}
+
+export interface MailConfig {
+  /** where the sender delivers; unset: notices wait in the outbox */
+  smtpUrl: string | undefined
+  from: string
+  /** waits between tries, in minutes; the last one repeats */
+  retryMinutes: number[]
+  /** a message still failing this long after it was queued is given up */
+  giveUpHours: number
+  /** how often the sender looks for due messages */
+  pollSeconds: number
 }
 
 export class ConfigError extends Error {}

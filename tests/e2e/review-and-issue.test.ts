@@ -1,6 +1,6 @@
 import { request, type APIRequestContext, type Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { screenshot, signIn, unexpectedErrors, useBrowser } from '../helpers/browser'
+import { apiSignIn, screenshot, signIn, unexpectedErrors, useBrowser } from '../helpers/browser'
 
 const browser = useBrowser()
 const TITLE = 'Sheared boom foot bolt'
@@ -11,12 +11,8 @@ let token = ''
 /** The investigator's own API session, for what the findings editor (not this journey) does. */
 async function apiAs(email: string): Promise<APIRequestContext> {
   const api = await request.newContext({ baseURL: inject('baseUrl') })
-  const csrf = await (await api.get('/api/auth/csrf')).json()
-  const login = await api.post('/api/auth/login', {
-    headers: { 'X-CSRF-Token': csrf.data.token },
-    data: { email, password: inject('demoPassword') },
-  })
-  expect(login.status()).toBe(200)
+  // password, then the second factor's code, as a person signs in
+  expect(await apiSignIn(api, email, inject('demoPassword'))).toBe(200)
   token = (await (await api.get('/api/auth/csrf')).json()).data.token
   return api
 }

@@ -107,7 +107,7 @@ export async function askQuestion(
       body,
     })) as number[]
     const details = { reportId, questionId: id, revision: report.revision }
-    await notifyQuestion(trx, { caseId, actorId: actor.id, details })
+    await notifyQuestion(trx, { caseId, actorId: actor.id, details, text: body })
   })
   const thread = await questionThread(db, reportId)
   return thread[thread.length - 1] as ReportQuestion
@@ -132,7 +132,7 @@ export async function answerQuestion(
       askedBy: question.askedBy,
       revision: report.revision,
     }
-    await notifyAnswer(trx, { caseId, actorId: actor.id, details })
+    await notifyAnswer(trx, { caseId, actorId: actor.id, details, text: body })
   })
   const thread = await questionThread(db, ids.reportId)
   return thread.find((q) => q.id === ids.questionId) as ReportQuestion

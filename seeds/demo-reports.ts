@@ -1,3 +1,4 @@
+import { renderReportPdf } from '../server/services/reports/pdf'
 import type { Knex } from 'knex'
 import type { Actor } from '../shared/access/policy'
 import type { Block, FindingsDocument } from '../shared/findings/document'
@@ -49,7 +50,9 @@ export async function seedDemoReport(
 ) {
   const findings = createFindingsService()
   const review = createReviewService()
-  const reports = createReportService({ storage, photos: createPhotoService({ storage }) })
+  // the demo's reports are laid out in this thread: the seed runs before any request is served
+  const photos = createPhotoService({ storage })
+  const reports = createReportService({ storage, photos, renderPdf: renderReportPdf })
   const as = (actor: Actor) => ({ actor, db })
   const save = async (doc: FindingsDocument) => {
     const { version } = await findings.read(as(people.lead), caseId)

@@ -128,12 +128,13 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   const evidence = createEvidenceServices()
   const photos = createPhotoService({ storage: deps.storage })
   const incomingDir = deps.incomingDir ?? incomingDirOf(config.uploadsDir)
-  const reports = createReportService({ storage: deps.storage, photos })
+  const renderPdf = deps.renderReportPdf ?? renderReportPdfOffThread
+  const reports = createReportService({ storage: deps.storage, photos, renderPdf })
   const children = {
     photos: casePhotoRoutes(db, photos, incomingDir),
     findings: findingsRoutes(db, createFindingsService(), {
       photos,
-      render: deps.renderReportPdf ?? renderReportPdfOffThread,
+      render: renderPdf,
     }),
     hardness: hardnessRoutes(db),
     review: reviewRoutes(db, createReviewService()),

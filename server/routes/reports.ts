@@ -1,3 +1,4 @@
+import { sendPdf } from './report-pdf'
 import { Router, type Request } from 'express'
 import type { Knex } from 'knex'
 import {
@@ -80,6 +81,14 @@ export function reportRoutes(db: Knex, cases: CaseService, reports: ReportServic
     res.setHeader('X-Content-Type-Options', 'nosniff')
     res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox")
     res.send(png)
+  })
+  router.get('/:id/pdf', async (req, res) => {
+    const { bytes, fileName } = await reports.pdf(
+      contextOf(req, db),
+      caseFileOf(res).id,
+      reportIdOf(req),
+    )
+    sendPdf(res, bytes, fileName)
   })
   router.post('/:id/acknowledge', allowOnCase('case.acknowledgeReport'), async (req, res) => {
     const ctx = contextOf(req, db)

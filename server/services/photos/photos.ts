@@ -169,7 +169,7 @@ export async function caseOfPhoto(db: Knex, photoId: number): Promise<number | u
 /** Which of these storage keys a record names (attachments and photos), for the start-up sweep. */
 export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<string>> {
   if (keys.length === 0) return new Set()
-  const [attachments, records, photos, figures] = (await Promise.all([
+  const [attachments, records, photos, figures, pdfs] = (await Promise.all([
     db('attachments').whereIn('storageKey', keys).select('storageKey'),
     db('tensileRecords').whereIn('storageKey', keys).select('storageKey'),
     db('photos')
@@ -178,10 +178,12 @@ export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<st
       .orWhereIn('thumbnailKey', keys)
       .select('originalKey', 'displayKey', 'thumbnailKey'),
     db('reportFigures').whereIn('storageKey', keys).select('storageKey'),
+    db('reportPdfs').whereIn('storageKey', keys).select('storageKey'),
   ])) as [
     { storageKey: string }[],
     { storageKey: string }[],
     { originalKey: string; displayKey: string; thumbnailKey: string }[],
+    { storageKey: string }[],
     { storageKey: string }[],
   ]
   return new Set([
@@ -189,5 +191,6 @@ export async function knownStorageKeys(db: Knex, keys: string[]): Promise<Set<st
     ...records.map((row) => row.storageKey),
     ...photos.flatMap((row) => [row.originalKey, row.displayKey, row.thumbnailKey]),
     ...figures.map((row) => row.storageKey),
+    ...pdfs.map((row) => row.storageKey),
   ])
 }

@@ -1,4 +1,6 @@
 import type { Knex } from 'knex'
+import type { FindingsDocument } from '../../../shared/findings/document'
+import type { LiveBlockSnapshots } from '../../../shared/findings/live-blocks'
 import { figuresOf } from '../../../shared/findings/figures'
 import { findingsTemplate } from '../../../shared/findings/template'
 import type { CaseRecord } from '../cases/case-record'
@@ -56,6 +58,67 @@ async function observationsOf(db: Knex, caseId: number) {
   }))
 }
 
+/** What the report says of the case whatever its revision: laboratory, case, dates, people. */
+async function caseParts(db: Knex, record: CaseRecord) {
+  return {
+    laboratory: await readLaboratorySettings(db),
+    case: {
+      number: record.number,
+      title: record.title,
+      clientName: record.organisationName,
+      clientReference: record.clientReference,
+      component: record.component,
+      material: record.material,
+    },
+    dates: await reportDates(db, record.id, record.receivedOn),
+    observations: await observationsOf(db, record.id),
+    conformity: await conformityStatement(db, record.id),
+  }
+}
+
+export interface IssuedParts {
+  revision: string
+  issuedAt: Date
+  replaces: { revision: string; reason: string } | null
+  doc: FindingsDocument
+  figures: ReportPdfInput['figures']
+  liveBlocks: LiveBlockSnapshots
+  approverId: number
+  issuerId: number
+}
+
+/**
+ * An issued revision's PDF input, made once at issue inside its transaction: the frozen
+ * document, figures and live blocks, with the approver as reviewer and the issuer as authoriser.
+ */
+export async function issuedPdfInput(
+  db: Knex,
+  record: CaseRecord,
+  parts: IssuedParts,
+): Promise<ReportPdfInput> {
+  const common = await caseParts(db, record)
+  const issued = parts.issuedAt.toISOString().slice(0, 10)
+  return {
+    ...common,
+    report: {
+      number: reportNumberOf(record.number),
+      revision: parts.revision,
+      issuedAt: parts.issuedAt.toISOString(),
+      replaces: parts.replaces,
+      draft: false,
+    },
+    dates: { ...common.dates, issued },
+    people: {
+      author: await person(db, record.leadInvestigatorId, 'Lead investigator'),
+      reviewer: await person(db, parts.approverId, 'Reviewer (approved the findings)'),
+      authoriser: await person(db, parts.issuerId, 'Authorised the issue'),
+    },
+    doc: parts.doc,
+    figures: parts.figures,
+    liveBlocks: parts.liveBlocks,
+  }
+}
+
 /**
  * A draft's PDF input from the case as it is now: the findings draft, live blocks read afresh,
  * figures drawn from the photos' current marks, the observations and the laboratory's settings.
@@ -71,8 +134,9 @@ export async function draftPdfInput(
   const row = await findFindings(db, record.id)
   const doc = row ? documentOf(row) : findingsTemplate()
   const figures = figuresOf(doc).map((figure) => figure.attrs)
+  const common = await caseParts(db, record)
   return {
-    laboratory: await readLaboratorySettings(db),
+    ...common,
     report: {
       number: reportNumberOf(record.number),
       revision: 'draft',
@@ -80,15 +144,7 @@ export async function draftPdfInput(
       replaces: null,
       draft: true,
     },
-    case: {
-      number: record.number,
-      title: record.title,
-      clientName: record.organisationName,
-      clientReference: record.clientReference,
-      component: record.component,
-      material: record.material,
-    },
-    dates: { ...(await reportDates(db, record.id, record.receivedOn)), issued: null },
+    dates: { ...common.dates, issued: null },
     people: {
       author: await person(db, record.leadInvestigatorId, 'Lead investigator'),
       reviewer: await person(db, record.reviewerId, 'Reviewer'),
@@ -97,7 +153,5 @@ export async function draftPdfInput(
     doc,
     figures: await currentFigures(ctx, record.id, photos, figures),
     liveBlocks: await readLiveBlocks(db, record.id, liveBlockKindsOf(doc), now),
-    observations: await observationsOf(db, record.id),
-    conformity: await conformityStatement(db, record.id),
   }
 }

@@ -16,6 +16,8 @@ import { currentApprovalRow } from '../review/approvals'
 import { contentSha256 } from '../review/content-hash'
 import { guardAction } from '../review/guard'
 import { notifyIssued } from '../review/notify'
+import { issuedPdfInput } from './draft-pdf-input'
+import type { ReportPdfInput } from './pdf'
 import { figureRowsOf, findReportRow, rowHashOf } from './report-rows'
 
 export const reportFigureSrc = (reportId: number, figureId: string) =>
@@ -27,6 +29,8 @@ interface IssueDeps {
   storage: FileStorage
   photos: PhotoService
   clock: () => Date
+  /** lays out the revision's PDF, made once at issue */
+  renderPdf: (input: ReportPdfInput) => Promise<Buffer>
 }
 
 /** The approved content, refused unless it is exactly what the reviewer approved. */
@@ -49,7 +53,8 @@ async function freezeFigures(
   reportId: number,
   doc: FindingsDocument,
   stored: StoredFile[],
-) {
+): Promise<ReportPdfInput['figures']> {
+  const frozen: ReportPdfInput['figures'] = {}
   const seen = new Set<string>()
   for (const figure of figuresOf(doc)) {
     if (seen.has(figure.attrs.figureId)) continue
@@ -57,6 +62,7 @@ async function freezeFigures(
     const { png } = await deps.photos.figure(ctx, record.id, figure.attrs.photoId)
     const file = await deps.storage.put(png)
     stored.push(file)
+    frozen[figure.attrs.figureId] = { png }
     await ctx.db('report_figures').insert({
       reportId,
       figureId: figure.attrs.figureId,
@@ -66,6 +72,25 @@ async function freezeFigures(
       size: file.size,
     })
   }
+  return frozen
+}
+
+/** The revision's PDF, laid out once from its frozen parts and stored with its SHA-256. */
+async function storePdf(
+  trx: Knex,
+  deps: IssueDeps,
+  reportId: number,
+  input: ReportPdfInput,
+  stored: StoredFile[],
+) {
+  const file = await deps.storage.put(await deps.renderPdf(input))
+  stored.push(file)
+  await trx('report_pdfs').insert({
+    reportId,
+    storageKey: file.key,
+    sha256: file.sha256,
+    size: file.size,
+  })
 }
 
 /** Writes the HTML (pointing at the report's own figure routes), then seals the row by its hash. */
@@ -117,8 +142,25 @@ async function issueIn(ctx: ServiceContext, deps: IssueDeps, caseId: number, sto
     issuedAt,
   })) as number[]
   const id = reportId as number
-  await freezeFigures(ctx, deps, record, id, doc, stored)
+  const figures = await freezeFigures(ctx, deps, record, id, doc, stored)
   const { row, rowSha256 } = await sealReport(trx, id, doc, live)
+  const replaced = amendment
+    ? ((await trx('reports').where({ id: amendment.replacesReportId }).first('revision')) as {
+        revision: string
+      })
+    : undefined
+  const pdfInput = await issuedPdfInput(trx, record, {
+    revision: row.revision,
+    issuedAt,
+    replaces:
+      amendment && replaced ? { revision: replaced.revision, reason: amendment.reason } : null,
+    doc,
+    figures,
+    liveBlocks: live,
+    approverId: approval.approverId,
+    issuerId: actor.id,
+  })
+  await storePdf(trx, deps, id, pdfInput, stored)
   await trx('approvals').where({ id: approval.id }).update({ reportId: id })
   if (amendment) await trx('amendments').where({ id: amendment.id }).update({ reportId: id })
   await trx('cases')

@@ -99,5 +99,19 @@ export function createReportReading(storage: FileStorage) {
     }
   }
 
-  return { list, readable, get, figure }
+  /** The PDF made at issue, served as stored once the revision and the file pass their checks. */
+  async function pdf(ctx: ServiceContext, caseId: number, reportId: number) {
+    const { row } = await checkedReport(ctx, caseId, reportId)
+    const stored = (await ctx.db('report_pdfs').where({ reportId }).first()) as
+      { storageKey: string; sha256: string } | undefined
+    if (!stored) throw new NotFound('This revision has no PDF.')
+    try {
+      const bytes = await storage.read({ key: stored.storageKey, sha256: stored.sha256 })
+      return { bytes, fileName: `${row.number}-${row.revision}.pdf` }
+    } catch {
+      return integrityFailure(ctx, row, 'PDF')
+    }
+  }
+
+  return { list, readable, get, figure, pdf }
 }

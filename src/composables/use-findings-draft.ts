@@ -132,9 +132,12 @@ export function useFindingsDraft(caseId: Ref<number>, editable: Ref<boolean>, ed
   /** Live blocks and flags follow the case while the writer works; an idle copy follows others' saves. */
   async function poll(): Promise<void> {
     if (state.value !== 'saved') return
+    const asked = version.value
     const fresh = await fetchFindings(caseId.value).catch(() => undefined)
-    if (!fresh || state.value !== 'saved') return
-    if (fresh.version !== version.value) editor.replace(fresh.doc)
+    // anything saved or typed meanwhile is newer than this answer: leave it be
+    if (!fresh || state.value !== 'saved' || version.value !== asked) return
+    if (fresh.version < asked) return
+    if (fresh.version > asked) editor.replace(fresh.doc)
     adopt(fresh)
   }
 

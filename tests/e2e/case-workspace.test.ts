@@ -118,7 +118,7 @@ describe('the case workspace', () => {
     } finally {
       await other?.close()
     }
-    await page.getByTestId('section-case-findings').click()
+    await page.getByTestId('section-case-review').click()
     await expect
       .poll(() => page.getByTestId('section-empty').textContent())
       .toContain('Nothing recorded yet.')

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
-import type { APIRequestContext, Page } from 'playwright-core'
+import type { APIRequestContext, Locator, Page } from 'playwright-core'
 import sharp from 'sharp'
 import { describe, expect, inject, it } from 'vitest'
 import { openBrowser, screenshot, signIn, unexpectedErrors, useBrowser } from '../helpers/browser'
@@ -103,6 +103,15 @@ async function insertFigure(page: Page, photoIndex: number, caption: string) {
   await dialog.waitFor({ state: 'detached' })
 }
 
+/** Ticks an observation in an opinion's picker, opening it first if it is closed. */
+async function cite(page: Page, opinion: Locator, number: string) {
+  const option = page.getByRole('option', { name: new RegExp(`^${number}:`) })
+  if (!(await option.isVisible())) await opinion.getByTestId('opinion-cites').click()
+  await option.click()
+  await expect.poll(() => opinion.getAttribute('data-cited')).toContain(number)
+  await page.keyboard.press('Escape')
+}
+
 const saved = (page: Page) =>
   expect.poll(() => page.getByTestId('save-state').getAttribute('data-state'))
 
@@ -143,10 +152,8 @@ describe('the findings draft', () => {
     await page.getByTestId('insert-opinion').click()
     await page.keyboard.type('The lug failed by fatigue from the fretted bore.')
     const conclusion = page.getByTestId('opinion').first()
-    await conclusion.getByTestId('opinion-cites').click()
-    await page.getByRole('option', { name: /^O-1:/ }).click()
-    await page.getByRole('option', { name: /^O-2:/ }).click()
-    await page.keyboard.press('Escape')
+    await cite(page, conclusion, 'O-1')
+    await cite(page, conclusion, 'O-2')
     await expect.poll(() => conclusion.getAttribute('data-cited')).toBe('O-1,O-2')
     expect(await conclusion.getByTestId('opinion-flag').count()).toBe(0)
 

@@ -118,10 +118,9 @@ describe('the case workspace', () => {
     } finally {
       await other?.close()
     }
+    // every section now has its page: the review section opens on this case, still in intake
     await page.getByTestId('section-case-review').click()
-    await expect
-      .poll(() => page.getByTestId('section-empty').textContent())
-      .toContain('Nothing recorded yet.')
+    await page.getByTestId('case-review').waitFor()
     expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 })

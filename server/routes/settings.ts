@@ -1,11 +1,16 @@
 import { Router } from 'express'
 import type { Knex } from 'knex'
 import { LaboratorySettingsUpdate } from '../../shared/schemas/laboratory'
-import { authorize, requirePermission } from '../middleware/require-auth'
+import { NoticeSettingsUpdate } from '../../shared/schemas/notice-settings'
+import { authorize, currentUser, requirePermission } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import { readLaboratorySettings, saveLaboratorySettings } from '../services/laboratory-settings'
+import { readNoticeSettings, saveNoticeSettings } from '../services/notice-settings'
 
-/** `/api/settings`: the laboratory's particulars (staff read them, administrators change them). */
+/**
+ * `/api/settings`: the laboratory's particulars (staff read them, administrators change them) and
+ * each person's own choice of e-mail notices.
+ */
 export function settingsRoutes(db: Knex): Router {
   const router = Router()
   router.get('/laboratory', async (req, res) => {
@@ -22,5 +27,12 @@ export function settingsRoutes(db: Knex): Router {
       res.json({ data: await saveLaboratorySettings({ actor, db }, input) })
     },
   )
+  router.get('/notices', async (req, res) => {
+    res.json({ data: await readNoticeSettings({ actor: currentUser(req), db }) })
+  })
+  router.put('/notices', validate('body', NoticeSettingsUpdate), async (req, res) => {
+    const ctx = { actor: currentUser(req), db }
+    res.json({ data: await saveNoticeSettings(ctx, res.locals.body as NoticeSettingsUpdate) })
+  })
   return router
 }

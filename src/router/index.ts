@@ -39,6 +39,12 @@ export const router = createRouter({
       meta: { title: 'Set password' },
     },
     {
+      path: '/settings/notices',
+      name: 'notice-settings',
+      component: () => import('@/views/NoticeSettingsView.vue'),
+      meta: { title: 'E-mail notices' },
+    },
+    {
       path: '/second-factor',
       name: 'second-factor-setup',
       component: () => import('@/views/SecondFactorSetupView.vue'),

@@ -92,6 +92,9 @@ const ROUTES: RouteCase[] = [
     body: {},
     expect: { admin: 400, others: 403 },
   },
+  // each person's own e-mail notices: everyone reads and sets their own
+  { method: 'get', template: '/api/settings/notices', expect: { others: 200 } },
+  { method: 'put', template: '/api/settings/notices', body: {}, expect: { others: 400 } },
   // only the case's own investigators write them: these cases have none yet
   {
     method: 'put',

@@ -1,3 +1,5 @@
+import { PERSONAL_NOTICE_KINDS } from '../../../shared/schemas/notice-settings'
+
 /** The part someone was given on a case; each gets its own "you were assigned" notice. */
 export type AssignedPart = 'lead' | 'lab' | 'reviewer'
 
@@ -25,16 +27,11 @@ export type Notice =
 
 export type NoticeKind = Notice['kind']
 
-export const NOTICE_KINDS: readonly NoticeKind[] = [
-  'assigned',
-  'review_requested',
-  'revisions_requested',
-  'approved',
-  'report_issued',
-  'client_question',
-  'answer',
+/** Every kind: those people receive (and may choose), and the notice to outside parties. */
+export const NOTICE_KINDS = [
+  ...PERSONAL_NOTICE_KINDS,
   'destructive_testing_notice',
-]
+] as const satisfies readonly NoticeKind[]
 
 /** One recipient, from a people record or a party named on the case. */
 export interface Recipient {

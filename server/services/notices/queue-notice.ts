@@ -1,17 +1,29 @@
 import { randomUUID } from 'node:crypto'
 import type { Knex } from 'knex'
-import type { Notice, StoredNotice } from './notice-kinds'
+import type { Notice, Recipient, StoredNotice } from './notice-kinds'
 import { caseFactsOf, kindFacts } from './notice-facts'
+import { optedOut } from '../notice-settings'
 import { caseFacts, recipientsOf } from './recipients'
 import { oneLine, renderNotice } from './render'
 
 /** A Message-ID made once, when the row is written, so every try sends the same one. */
 const newMessageId = () => `<${randomUUID()}@outbox.fractolog.invalid>`
 
+/** The recipients who have not turned this kind of notice off (essential ones always stay). */
+async function wantingIt(db: Knex, notice: Notice, recipients: Recipient[]): Promise<Recipient[]> {
+  const ids = recipients.flatMap((recipient) =>
+    recipient.personId === null ? [] : [recipient.personId],
+  )
+  const off = await optedOut(db, notice.kind, ids)
+  return recipients.filter(
+    (recipient) => recipient.personId === null || !off.has(recipient.personId),
+  )
+}
+
 /**
  * Writes one outbox row per recipient of `notice`. Call it with the transaction of the action
  * that causes the notice: the rows commit or roll back with it, and nothing is sent here, so the
- * action never waits for mail. Answers the ids of the rows written (none without a recipient).
+ * action never waits for mail. People who turned the kind off get no row. Answers the ids of the rows written (none without a recipient).
  */
 export async function queueNotice(
   db: Knex,
@@ -19,7 +31,7 @@ export async function queueNotice(
   clock: () => Date = () => new Date(),
 ): Promise<number[]> {
   const found = await caseFacts(db, notice.caseId)
-  const recipients = await recipientsOf(db, notice, found)
+  const recipients = await wantingIt(db, notice, await recipientsOf(db, notice, found))
   if (recipients.length === 0) return []
   const extra = await kindFacts(db, notice)
   const now = clock()

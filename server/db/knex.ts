@@ -1,16 +1,36 @@
 import knex, { type Knex } from 'knex'
 import { quietConnectionWarnings } from './availability'
 
-const toSnake = (name: string) => name.replace(/[A-Z]/g, (letter) => `_${letter.toLowerCase()}`)
-const toCamel = (name: string) =>
-  name.replace(/_([a-z0-9])/g, (_, letter: string) => letter.toUpperCase())
+/**
+ * Every identifier of every query and every column of every row passes through these: the
+ * names are few, so each is converted once and remembered (bounded, in case of a flood of
+ * aliases).
+ */
+function remembered(convert: (name: string) => string): (name: string) => string {
+  const known = new Map<string, string>()
+  return (name) => {
+    let converted = known.get(name)
+    if (converted === undefined) {
+      converted = convert(name)
+      if (known.size < 5_000) known.set(name, converted)
+    }
+    return converted
+  }
+}
+
+const toSnake = remembered((name) => name.replace(/[A-Z]/g, (l) => `_${l.toLowerCase()}`))
+const toCamel = remembered((name) =>
+  name.replace(/_([a-z0-9])/g, (_, l: string) => l.toUpperCase()),
+)
 
 function camelizeRow(row: unknown): unknown {
   if (Array.isArray(row)) return row.map(camelizeRow)
   if (row === null || typeof row !== 'object' || row instanceof Date || Buffer.isBuffer(row)) {
     return row
   }
-  return Object.fromEntries(Object.entries(row).map(([key, value]) => [toCamel(key), value]))
+  const camel: Record<string, unknown> = {}
+  for (const key in row) camel[toCamel(key)] = (row as Record<string, unknown>)[key]
+  return camel
 }
 
 // During an outage a request should hear "unavailable" in seconds, not after the driver's own

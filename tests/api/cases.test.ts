@@ -82,6 +82,10 @@ describe('GET /api/cases', () => {
     expect(first.body.page).toEqual({ number: 1, size: 3, total: 5 })
     const second = await sessions.lab.get('/api/cases?page=2&pageSize=3&q=Paging').expect(200)
     expect(second.body.data).toHaveLength(2)
+    expect(second.body.page).toEqual({ number: 2, size: 3, total: 5 })
+    // past the end: no rows, and still the whole count
+    const past = await sessions.lab.get('/api/cases?page=4&pageSize=3&q=Paging').expect(200)
+    expect(past.body).toMatchObject({ data: [], page: { number: 4, size: 3, total: 5 } })
     const byOrg = await sessions.lab.get(`/api/cases?organisationId=${orgA}`).expect(200)
     expect(byOrg.body.data.map((item: { id: number }) => item.id)).toEqual([caseA.id])
     const byMaterial = await sessions.lab.get('/api/cases?q=4140').expect(200)
@@ -141,6 +145,28 @@ describe('POST /api/cases', () => {
     )
     const numbers = created.map((response) => response.body.data.number)
     expect(new Set(numbers).size).toBe(6)
+  })
+
+  it("keeps the whole list's total true at once when a case is opened or moves organisation", async () => {
+    const totalOf = async (who: 'lab' | 'client' | 'client2') =>
+      (await sessions[who].get('/api/cases').expect(200)).body.page.total as number
+    const [staff, clientA, clientB] = [
+      await totalOf('lab'),
+      await totalOf('client'),
+      await totalOf('client2'),
+    ]
+    const opened = await sessions.admin.post('/api/cases', newCase(orgA)).expect(201)
+    expect(await totalOf('lab')).toBe(staff + 1)
+    expect(await totalOf('client')).toBe(clientA + 1)
+    await sessions.admin
+      .patch(`/api/cases/${opened.body.data.id}`, {
+        organisationId: orgB,
+        version: opened.body.data.version,
+      })
+      .expect(200)
+    expect(await totalOf('lab')).toBe(staff + 1)
+    expect(await totalOf('client')).toBe(clientA)
+    expect(await totalOf('client2')).toBe(clientB + 1)
   })
 
   it('refuses everyone else with 403 and writes nothing', async () => {

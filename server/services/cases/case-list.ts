@@ -13,6 +13,7 @@ import { ValidationError } from '../../errors'
 import type { ServiceContext } from '../context'
 import { toClientView, toSummary } from './case-record'
 import { applySearch, planSearch } from './case-search'
+import { wholeScopeKey, type ListTotals } from './list-totals'
 
 /** States in which a case no longer waits on the lab: its due date is met or moot. */
 export const FINISHED_STATES: CaseState[] = ['issued', 'closed']
@@ -96,37 +97,75 @@ function checkClientFilters(ctx: ServiceContext, query: CaseListQuery): void {
   )
 }
 
-/** One page of cases: staff see the working summary, clients their plain status lines. */
+/** What a list row shows (staff summary and client status line), no more. */
+const LIST_COLUMNS = [
+  'id',
+  'number',
+  'title',
+  'status',
+  'turnaround',
+  'safetyCritical',
+  'organisationId',
+  'component',
+  'material',
+  'clientReference',
+  'leadInvestigatorId',
+  'dueDate',
+  'createdAt',
+  'updatedAt',
+].map((column) => `cases.${column}`)
+
+/**
+ * One page of cases: staff see the working summary, clients their plain status lines.
+ *
+ * One statement for the page and its total: the page's ids come from `cases` alone in a derived
+ * table, so the sort walks an index and stops at the limit; only those rows are joined with
+ * their names; the total is a scalar subquery beside them, or the kept total of the person's
+ * whole scope (`totals`). A page past the end has no row to carry the total, so only then is it
+ * counted on its own.
+ */
 export async function listCases(
   ctx: ServiceContext,
   query: CaseListQuery,
   now: Date = new Date(),
+  totals?: ListTotals,
 ): Promise<{ data: CaseSummary[] | ClientCaseView[]; page: Page }> {
   checkClientFilters(ctx, query)
   const cases = casesInScope(ctx, query, todayIso(now))
-  const [{ total }] = (await cases.clone().count({ total: '*' })) as [{ total: number }]
-  // The page's ids first, from `cases` alone, so the sort can walk an index and stop at the
-  // limit; joined with its names afterwards, only the page's rows are widened.
-  const ids = (await cases
+  const totalKey = totals && wholeScopeKey(query, organisationScope(ctx.actor))
+  const keptTotal = totalKey === undefined ? undefined : totals?.get(totalKey)
+  const sortColumn = SORT_COLUMNS[query.sort]
+  const pageIds = cases
     .clone()
     .select('cases.id')
-    .orderBy(SORT_COLUMNS[query.sort], query.order)
+    .orderBy(sortColumn, query.order)
     .orderBy('cases.id', query.order)
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize)
-    .pluck('cases.id')) as number[]
-  const rows = await ctx
-    .db('cases')
-    .whereIn('cases.id', ids)
+  const rows = (await ctx.db
+    .from(pageIds.as('page'))
+    .join('cases', 'cases.id', 'page.id')
     .join('organisations', 'organisations.id', 'cases.organisationId')
     .leftJoin('users as lead', 'lead.id', 'cases.leadInvestigatorId')
     .select(
-      'cases.*',
+      ...LIST_COLUMNS,
       'organisations.name as organisationName',
       'lead.name as leadInvestigatorName',
+      keptTotal === undefined
+        ? cases.clone().count('*').as('listTotal')
+        : ctx.db.raw('? AS list_total', [keptTotal]),
     )
-    .orderBy(SORT_COLUMNS[query.sort], query.order)
-    .orderBy('cases.id', query.order)
-  const page: Page = { number: query.page, size: query.pageSize, total: Number(total) }
+    .orderBy(sortColumn, query.order)
+    .orderBy('cases.id', query.order)) as (Parameters<typeof toSummary>[0] & {
+    clientReference: string | null
+    listTotal: number | string
+  })[]
+  const total = rows[0]
+    ? Number(rows[0].listTotal)
+    : query.page === 1
+      ? 0
+      : Number(((await cases.clone().count({ total: '*' })) as [{ total: number }])[0].total)
+  if (totalKey !== undefined && keptTotal === undefined) totals?.keep(totalKey, total)
+  const page: Page = { number: query.page, size: query.pageSize, total }
   return { data: isStaff(ctx.actor) ? rows.map(toSummary) : rows.map(toClientView), page }
 }

@@ -60,22 +60,24 @@ export async function findCase(
   organisationScope?: number,
   options: { forUpdate?: boolean } = {},
 ): Promise<CaseRecord> {
+  // one statement: every case route loads its case through here
   const query = db('cases')
     .join('organisations', 'organisations.id', 'cases.organisationId')
-    .select('cases.*', 'organisations.name as organisationName')
+    .select(
+      'cases.*',
+      'organisations.name as organisationName',
+      db.raw(
+        '(SELECT GROUP_CONCAT(user_id ORDER BY user_id) FROM case_co_investigators WHERE case_co_investigators.case_id = cases.id) AS co_investigator_list',
+      ),
+    )
     .where('cases.id', id)
   if (organisationScope !== undefined) query.where('cases.organisationId', organisationScope)
   if (options.forUpdate) query.forUpdate()
-  const row = (await query.first()) as CaseRow | undefined
-  if (!row) throw new NotFound('No such case.')
-  const members = (await db('case_co_investigators')
-    .where({ caseId: id })
-    .orderBy('userId')
-    .select('userId')) as { userId: number }[]
-  return toRecord(
-    row,
-    members.map((member) => member.userId),
-  )
+  const found = (await query.first()) as
+    (CaseRow & { coInvestigatorList: string | null }) | undefined
+  if (!found) throw new NotFound('No such case.')
+  const { coInvestigatorList, ...row } = found
+  return toRecord(row, coInvestigatorList ? coInvestigatorList.split(',').map(Number) : [])
 }
 
 /** Names of everyone on the case, for display. */

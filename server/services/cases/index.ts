@@ -15,6 +15,7 @@ import type { ServiceContext } from '../context'
 import { findCase, toClientView, toDetail, type CaseRecord } from './case-record'
 import { checkCaseRecord } from './case-checks'
 import { listCases } from './case-list'
+import { createListTotals, LIST_TOTAL_KEEP_MS } from './list-totals'
 import { nextCaseNumber } from './case-number'
 import { writeCaseTerms } from './case-terms'
 import { queueAssignmentNotices } from './assignment-notices'
@@ -29,8 +30,9 @@ import {
 export { formatCaseNumber } from './case-number'
 export type { CaseRecord } from './case-record'
 
-export function createCaseService(options: { clock?: () => Date } = {}) {
+export function createCaseService(options: { clock?: () => Date; listTotalKeepMs?: number } = {}) {
   const clock = options.clock ?? (() => new Date())
+  const listTotals = createListTotals(options.listTotalKeepMs ?? LIST_TOTAL_KEEP_MS)
 
   /** The case in the actor's scope: the one loader every case route goes through. */
   function load({ actor, db }: ServiceContext, id: number): Promise<CaseRecord> {
@@ -76,6 +78,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
       await queueAssignmentNotices(trx, caseId, input, actor.id, clock)
       return caseId
     })
+    listTotals.forget()
     return findCase(db, id)
   }
 
@@ -86,7 +89,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
     change: CaseUpdate,
   ): Promise<CaseRecord> {
     const { actor, db } = ctx
-    return db.transaction(async (trx) => {
+    const updated = await db.transaction(async (trx) => {
       const current = await findCase(trx, caseId, undefined, { forUpdate: true })
       if (current.version !== change.version) {
         throw new AppError(
@@ -124,6 +127,9 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
       await queueAssignmentNotices(trx, caseId, assigned, actor.id, clock)
       return findCase(trx, caseId)
     })
+    // a case that moved to another organisation changes two clients' totals
+    if (change.organisationId !== undefined) listTotals.forget()
+    return updated
   }
 
   /** A plain status change along the state table (review and issue have their own actions). */
@@ -159,7 +165,7 @@ export function createCaseService(options: { clock?: () => Date } = {}) {
   }
 
   function list(ctx: ServiceContext, query: CaseListQuery) {
-    return listCases(ctx, query, clock())
+    return listCases(ctx, query, clock(), listTotals)
   }
 
   return { load, view, create, update, changeStatus, list }

@@ -12,7 +12,7 @@ describe('which case lists keep their total', () => {
   })
 
   it('never keeps a filtered or searched list', () => {
-    for (const filter of [
+    const filters: Record<string, string>[] = [
       { status: 'examination' },
       { stage: 'received' },
       { organisationId: '2' },
@@ -20,7 +20,8 @@ describe('which case lists keep their total', () => {
       { material: '42CrMo4' },
       { overdue: 'true' },
       { safetyCritical: 'false' },
-    ]) {
+    ]
+    for (const filter of filters) {
       expect(wholeScopeKey(query(filter), undefined), JSON.stringify(filter)).toBeUndefined()
     }
   })

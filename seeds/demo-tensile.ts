@@ -5,6 +5,9 @@ import { SpecimenCreate } from '../shared/schemas/mechanical-tests'
 import { recordHardness } from '../server/services/hardness'
 import { confirmRecord, uploadRecord } from '../server/services/mechanical-tests/records'
 import { createSpecimen } from '../server/services/mechanical-tests/specimens'
+import type { CaseService } from '../server/services/cases'
+import { findCase } from '../server/services/cases/case-record'
+import { seedStarterSpecifications } from '../server/services/specifications'
 import type { FileStorage } from '../server/storage/file-storage'
 import { analyseInThread } from '../server/tensile/analyse-upload'
 
@@ -148,4 +151,23 @@ export async function seedDemoTensile(
     })
     await recordHardness(ctx, caseId, input)
   }
+}
+
+/**
+ * The investigator links the pin's material to the library's A193-B7 record (its one band, up to
+ * 64 mm) for the pin's invented 55 mm diameter, so the demo's results carry a verdict.
+ */
+export async function linkDemoMaterial(
+  trx: Knex,
+  cases: CaseService,
+  caseId: number,
+  lead: Actor,
+): Promise<void> {
+  await seedStarterSpecifications(trx)
+  const record = (await trx('specifications').where({ designation: 'A193-B7' }).first('id')) as
+    { id: number } | undefined
+  if (!record) throw new Error('demo: the library has no A193-B7 record to link the pin to')
+  const { version } = await findCase(trx, caseId)
+  const link = { specificationId: record.id, specificationBand: 0, sectionSizeMm: 55 }
+  await cases.update({ actor: lead, db: trx }, caseId, { ...link, version })
 }

@@ -8,7 +8,7 @@ import { createServiceEventService } from '../server/services/service-events'
 import { ServiceEventCreate } from '../shared/schemas/service-events'
 import type { FileStorage } from '../server/storage/file-storage'
 import { seedDemoFindings } from './demo-findings'
-import { seedDemoTensile } from './demo-tensile'
+import { linkDemoMaterial, seedDemoTensile } from './demo-tensile'
 import { seedDemoReport } from './demo-reports'
 import {
   CASES,
@@ -136,6 +136,7 @@ async function seedCases(
       if (!findTransition(status, next)) throw new Error(`demo: no way from ${status} to ${next}`)
       status = (await cases.changeStatus({ actor: lead, db: trx }, created.id, next)).status
     }
+    if (demo.tensileTested) await linkDemoMaterial(trx, cases, created.id, lead)
     if (demo.tensileTested && demo.lab)
       await seedDemoTensile(trx, created.id, actors.get(demo.lab)!, storage, daysFrom(today, -20))
     if (demo.status === 'drafting')

@@ -56,6 +56,22 @@ const caseFields = {
   componentFunction: optionalText(1000, 'Function in service'),
   material: trimmed(191, 'Material as specified'),
   heatOrLot: optionalText(100, 'Heat or lot'),
+  /** the library record the material is judged against, with one of its size bands */
+  specificationId: z.nullable(idOf('Choose a specification record from the library.')),
+  specificationBand: z.nullable(
+    z
+      .int({ error: 'Choose a size band of the record.' })
+      .check(z.minimum(0, 'Choose a size band of the record.'), z.maximum(19)),
+  ),
+  /** the part's governing section size in mm (diameter or thickness), which picks the band */
+  sectionSizeMm: z.nullable(
+    z
+      .number({ error: 'The section size must be a number of millimetres.' })
+      .check(
+        z.positive('The section size must be above zero.'),
+        z.maximum(10_000, 'The section size is at most 10000 mm.'),
+      ),
+  ),
   receivedOn: z.nullable(IsoDate),
   failureDate: z.nullable(IsoDate),
   failureLocation: optionalText(191, 'Failure location'),
@@ -96,6 +112,9 @@ export const CaseCreate = z.strictObject({
   componentDescription: z._default(caseFields.componentDescription, null),
   componentFunction: z._default(caseFields.componentFunction, null),
   heatOrLot: z._default(caseFields.heatOrLot, null),
+  specificationId: z._default(caseFields.specificationId, null),
+  specificationBand: z._default(caseFields.specificationBand, null),
+  sectionSizeMm: z._default(caseFields.sectionSizeMm, null),
   receivedOn: z._default(caseFields.receivedOn, null),
   failureDate: z._default(caseFields.failureDate, null),
   failureLocation: z._default(caseFields.failureLocation, null),
@@ -236,6 +255,10 @@ export interface CaseDetail extends CaseSummary {
   componentDescription: string | null
   componentFunction: string | null
   heatOrLot: string | null
+  /** the library record and size band the material is judged against */
+  specificationId: number | null
+  specificationBand: number | null
+  sectionSizeMm: number | null
   receivedOn: string | null
   failureDate: string | null
   failureLocation: string | null

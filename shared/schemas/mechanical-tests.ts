@@ -1,4 +1,5 @@
 import { z } from 'zod/mini'
+import type { CaseConformity } from '../specifications/case-conformity'
 import type { TensileReport } from '../tensile/pipeline'
 import { Id, IsoDate, optionalText, trimmed } from './common'
 
@@ -98,6 +99,11 @@ export interface TensileRecordView {
   options: Record<string, string>
   /** exactly the engine's (the command line's --json) answer for the file and options */
   result: TensileReport
+  /**
+   * The result judged against the case's linked library record and size band, beside the
+   * engine's answer (in the case's list of specimens)
+   */
+  caseConformity?: CaseConformity
   state: TensileRecordState
   invalidReason: string | null
   invalidNote: string | null

@@ -133,6 +133,20 @@ function yieldCheck(spec: SpecificationRecord, result: TensileResult): Check[] {
               note: 'continuous yielding: Rp0.2 compared in place of ReH',
             },
           ]
+    case 'ReL':
+      // The stated U for ReH stands for both yield points (common practice): one more key would
+      // change what "5MPa" expands to in the command line's answer.
+      return result.discontinuousYielding
+        ? [{ ...base, property: 'ReL', uncertaintyKey: 'ReH', value: result.lowerYieldMPa }]
+        : [
+            {
+              ...base,
+              property: 'Rp0.2',
+              uncertaintyKey: 'Rp0.2',
+              value: rp02,
+              note: 'continuous yielding: Rp0.2 compared in place of ReL',
+            },
+          ]
     case 'Rp0.2':
       return [
         {

@@ -1,5 +1,5 @@
 /** Which yield a specification states its minimum for. */
-export type YieldKind = 'Rp0.2' | 'ReH' | 'Rt0.5'
+export type YieldKind = 'Rp0.2' | 'ReH' | 'ReL' | 'Rt0.5'
 
 /** Gauge length an elongation limit applies to: fixed, k·√S0, or a multiple of the diameter. */
 export type GaugeBasis =

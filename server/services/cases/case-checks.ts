@@ -4,6 +4,7 @@ import { caseDateIssues, type CaseFields } from '../../../shared/schemas/cases'
 import { todayIso } from '../../../shared/schemas/dates'
 import type { Role } from '../../../shared/schemas/roles'
 import { AppError, ValidationError } from '../../errors'
+import { LINK_FIELDS, materialLinkIssues } from './material-link-checks'
 
 type Assignments = Pick<
   CaseFields,
@@ -93,6 +94,8 @@ export async function checkCaseRecord(
   ) as unknown as Assignments
   people.coInvestigatorIds = changed.has('coInvestigatorIds') ? record.coInvestigatorIds : []
   issues.push(...(await assignmentIssues(db, people)))
+  if (LINK_FIELDS.some((field) => changed.has(field)))
+    issues.push(...(await materialLinkIssues(db, record)))
   if (issues.length > 0) {
     const [first] = issues
     throw new ValidationError(first?.message ?? 'The case record is not valid.', issues)

@@ -26,8 +26,14 @@ export type CaseRecord = CaseFields &
 
 type CaseRow = Omit<
   CaseRecord,
-  'createdAt' | 'updatedAt' | 'coInvestigatorIds' | 'mechanisms' | 'interestedParties'
+  | 'createdAt'
+  | 'updatedAt'
+  | 'coInvestigatorIds'
+  | 'mechanisms'
+  | 'interestedParties'
+  | 'sectionSizeMm'
 > & {
+  sectionSizeMm: string | number | null
   createdAt: Date
   updatedAt: Date
   safetyCritical: number | boolean
@@ -45,6 +51,8 @@ function toRecord(row: CaseRow, coInvestigatorIds: number[]): CaseRecord {
   return {
     ...row,
     safetyCritical: Boolean(row.safetyCritical),
+    // DECIMAL comes back from mysql2 as text
+    sectionSizeMm: row.sectionSizeMm === null ? null : Number(row.sectionSizeMm),
     mechanisms: jsonArray(row.mechanisms),
     interestedParties: jsonArray(row.interestedParties),
     coInvestigatorIds,

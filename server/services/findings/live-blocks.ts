@@ -9,6 +9,9 @@ import { todayIso } from '../../../shared/schemas/dates'
 import { SERVICE_EVENT_KIND_LABELS } from '../../../shared/schemas/service-events'
 import { serviceLife } from '../../../shared/service-history/service-life'
 import { formatValue, type SpecimenResult, type TensileReport } from '../../../shared/tensile'
+import { judgeAgainstLink } from '../../../shared/specifications/case-conformity'
+import { conformityLines } from '../../../shared/specifications/conformity-lines'
+import { loadCaseMaterial } from '../mechanical-tests/material-link'
 import { isoDay } from '../mechanical-tests/rows'
 
 type Reader = (db: Knex, caseId: number, now: Date) => Promise<Omit<LiveBlockSnapshot, 'takenAt'>>
@@ -118,16 +121,24 @@ const tensileResults: Reader = async (db, caseId) => {
     .where('tensile_records.superseded', false)
     .orderBy('specimens.label')
     .orderBy('tensile_records.id')
-    .select('tensile_records.result', 'specimens.label', 'specimens.standard')) as {
+    .select(
+      'tensile_records.result',
+      'tensile_records.options',
+      'specimens.label',
+      'specimens.standard',
+    )) as {
     result: string
+    options: string | Record<string, string>
     label: string
     standard: string | null
   }[]
+  const material = await loadCaseMaterial(db, caseId)
   const table: string[][] = []
   const notes = new Set<string>()
   for (const row of rows) {
+    const options = typeof row.options === 'string' ? JSON.parse(row.options) : row.options
     for (const result of specimenResults(JSON.parse(row.result) as TensileReport)) {
-      const conformity = result.conformity
+      const judged = judgeAgainstLink(result, options as Record<string, string>, material)
       table.push([
         row.label,
         text(row.standard),
@@ -136,16 +147,9 @@ const tensileResults: Reader = async (db, caseId) => {
         formatValue(result.tensileStrengthMPa, 'strength', 'si'),
         formatValue(result.elongationAfterFracturePct, 'elongation', 'si'),
         formatValue(result.reductionOfAreaPct, 'reduction', 'si'),
-        conformity ? VERDICT_WORDS[conformity.overall] : 'not judged',
+        judged.judged ? VERDICT_WORDS[judged.conformity.overall] : 'not judged',
       ])
-      if (conformity) {
-        const spec = conformity.specification
-        const edition = spec.edition ? `, edition ${spec.edition}` : ', edition not stated'
-        notes.add(
-          `Judged against ${spec.designation} ${spec.grade} (${spec.standard}${edition}). Decision rule: ${conformity.rule}`,
-        )
-        notes.add(conformity.caution)
-      }
+      for (const line of conformityLines(judged)) notes.add(line)
     }
   }
   if (table.length)

@@ -11,6 +11,8 @@ import type { FileStorage } from '../../storage/file-storage'
 import { checkedOptions, tensileRefusal, type TensileAnalyser } from '../../tensile/analyse-upload'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
+import { judgeAgainstLink } from '../../../shared/specifications/case-conformity'
+import { loadCaseMaterial } from './material-link'
 import { toRecordView, type RecordRow } from './rows'
 import { findSpecimen } from './specimens'
 
@@ -119,7 +121,10 @@ export async function uploadRecord(
       await recordAudit(trx, { caseId, actorId: actor.id, kind: 'tensile_record.added', details })
       return newId as number
     })
-    return { id, sha256: stored.sha256, result }
+    // The case's own verdict goes beside the engine's answer, which stays exactly the command line's.
+    const material = await loadCaseMaterial(db, caseId)
+    const caseConformity = judgeAgainstLink(result, options as Record<string, string>, material)
+    return { id, sha256: stored.sha256, result, caseConformity }
   } catch (error) {
     await deps.storage.remove(stored.key)
     throw error

@@ -5,10 +5,16 @@ import type {
   SpecimenCreate,
   TensileRecordView,
 } from '../../../shared/schemas/mechanical-tests'
-import { summariseSpecimens, type SpecimenSummary } from '../../../shared/tensile'
+import {
+  judgeAgainstLink,
+  overallOf,
+  type CaseOverallConformity,
+} from '../../../shared/specifications/case-conformity'
+import { summariseSpecimens, type SpecimenResult, type SpecimenSummary } from '../../../shared/tensile'
 import { Conflict, ValidationError, NotFound } from '../../errors'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
+import { loadCaseMaterial } from './material-link'
 import { toRecordView, toSpecimen, type RecordRow, type SpecimenRow } from './rows'
 
 export async function findSpecimen(db: Knex, caseId: number, specimenId: number) {
@@ -26,6 +32,8 @@ export interface SpecimenList {
   specimens: Specimen[]
   /** mean, standard deviation, minimum and maximum over the valid records shown */
   summary: { specimens: number; properties: SpecimenSummary }
+  /** the case's verdict against its linked record and band, over the records that count */
+  conformity: CaseOverallConformity
 }
 
 /**
@@ -43,7 +51,12 @@ export async function listSpecimens(
     .orderBy('id')) as SpecimenRow[]
   const recordQuery = db('tensile_records').where({ caseId }).orderBy('id')
   if (!staff) recordQuery.where({ state: 'confirmed', superseded: false })
-  const records = ((await recordQuery) as RecordRow[]).map(toRecordView)
+  const material = await loadCaseMaterial(db, caseId)
+  const records = ((await recordQuery) as RecordRow[]).map((row) => {
+    const view = toRecordView(row)
+    const result = view.result as SpecimenResult
+    return { ...view, caseConformity: judgeAgainstLink(result, view.options, material) }
+  })
   const specimens = specimenRows
     .map((row) =>
       toSpecimen(
@@ -54,9 +67,11 @@ export async function listSpecimens(
     .filter((specimen) => staff || specimen.records.length > 0)
   const valid = records.filter(counts).map((record) => record.result)
   const results = valid.flatMap((report) => (Array.isArray(report) ? [] : [report]))
+  const judged = records.filter(counts).map((record) => record.caseConformity)
   return {
     specimens,
     summary: { specimens: results.length, properties: summariseSpecimens(results) },
+    conformity: overallOf(judged, material),
   }
 }
 

@@ -112,7 +112,13 @@ export async function seedDemoTensile(
 ): Promise<void> {
   const ctx = { actor: lab, db: trx }
   const deps = { storage, analyse: analyseInThread }
-  const common = { diameter: `${DIAMETER_MM}mm`, gaugeLength: `${GAUGE_MM}mm`, spec: 'A193-B7' }
+  // The verdict comes from the case's linked record (see linkDemoMaterial), not an engine option.
+  const common = {
+    diameter: `${DIAMETER_MM}mm`,
+    gaugeLength: `${GAUGE_MM}mm`,
+    uncertainty: '12MPa,1%',
+    uncertaintySource: 'the demo laboratory’s invented budget',
+  }
   for (const scenario of SPECIMENS) {
     const specimen = await createSpecimen(
       ctx,

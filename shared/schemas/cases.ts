@@ -259,6 +259,8 @@ export interface CaseDetail extends CaseSummary {
   specificationId: number | null
   specificationBand: number | null
   sectionSizeMm: number | null
+  /** the linked record and band in words, with the unverified mark when it applies */
+  linkedSpecification: string | null
   receivedOn: string | null
   failureDate: string | null
   failureLocation: string | null

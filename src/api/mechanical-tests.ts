@@ -3,7 +3,7 @@ import type {
   SpecimenCreate,
   TensileRecordView,
 } from '../../shared/schemas/mechanical-tests'
-import type { Specification } from '../../shared/schemas/specifications'
+import type { CaseOverallConformity } from '../../shared/specifications/case-conformity'
 import type { SpecimenResult, SpecimenSummary } from '../../shared/tensile'
 import { request } from './client'
 
@@ -12,6 +12,8 @@ const base = (caseId: number) => `/cases/${caseId}`
 export interface SpecimenList {
   specimens: Specimen[]
   summary: { specimens: number; properties: SpecimenSummary }
+  /** the case's verdict against its linked record and band */
+  conformity: CaseOverallConformity | null
 }
 
 export async function listSpecimens(caseId: number): Promise<SpecimenList> {
@@ -81,8 +83,4 @@ export async function fetchTensileRecordText(caseId: number, recordId: number): 
   })
   if (!response.ok) throw new Error(`The original record could not be read (${response.status}).`)
   return response.text()
-}
-
-export async function listSpecifications(): Promise<Specification[]> {
-  return (await request<{ data: Specification[] }>('GET', '/specifications')).data
 }

@@ -12,7 +12,11 @@ import type { SpecimenCreate, TensileRecordView } from '../../shared/schemas/mec
 
 /** A case's specimens and test records, and the lab's actions on them. */
 export function useMechanicalTests(caseId: Ref<number>) {
-  const list = ref<SpecimenList>({ specimens: [], summary: { specimens: 0, properties: {} } })
+  const list = ref<SpecimenList>({
+    specimens: [],
+    summary: { specimens: 0, properties: {} },
+    conformity: null,
+  })
   const loading = ref(false)
 
   async function load(): Promise<void> {

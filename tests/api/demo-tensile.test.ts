@@ -3,7 +3,9 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createLocalStorage } from '../../server/storage/local-storage'
-import { analyseSpecimens } from '../../shared/tensile'
+import { loadCaseMaterial } from '../../server/services/mechanical-tests/material-link'
+import { judgeAgainstLink } from '../../shared/specifications/case-conformity'
+import { analyseSpecimens, type SpecimenResult } from '../../shared/tensile'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -25,12 +27,14 @@ describe('the demo’s tensile tests', () => {
     const rows = (await db('tensile_records').orderBy('id')) as {
       storageKey: string
       sha256: string
+      caseId: number
       fileName: string
       options: string | Record<string, string>
       result: string
       state: string
     }[]
     expect(rows.map((row) => row.state)).toEqual(['confirmed', 'confirmed', 'confirmed'])
+    const material = await loadCaseMaterial(db, rows[0]!.caseId)
     for (const row of rows) {
       const bytes = await storage.read({ key: row.storageKey, sha256: row.sha256 })
       const options = typeof row.options === 'string' ? JSON.parse(row.options) : row.options
@@ -39,11 +43,12 @@ describe('the demo’s tensile tests', () => {
         options,
       )
       expect(JSON.parse(row.result)).toEqual(expected)
-      const result = expected as {
-        conformity: { overall: string } | null
-        tensileStrengthMPa: number
-      }
-      expect(result.conformity?.overall).toMatch(/^(pass|fail|inconclusive|incomplete)$/)
+      // the case's verdict against its linked record, beside the engine's answer
+      const judged = judgeAgainstLink(expected as SpecimenResult, options, material)
+      expect(judged.judged && judged.link.designation).toBe('A193-B7')
+      expect(judged.judged && judged.conformity.overall).toMatch(
+        /^(pass|fail|inconclusive|incomplete)$/,
+      )
     }
   })
 })

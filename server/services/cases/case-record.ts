@@ -9,6 +9,8 @@ import type {
   MechanismEntry,
   PersonRef,
 } from '../../../shared/schemas/cases'
+import type { SpecificationBand } from '../../../shared/schemas/specifications'
+import { describeBand } from '../../../shared/specifications/size-bands'
 import { clientStageOf, type CaseState } from '../../../shared/workflow/case-states'
 import { NotFound } from '../../errors'
 
@@ -88,6 +90,28 @@ export async function findCase(
   return toRecord(row, coInvestigatorList ? coInvestigatorList.split(',').map(Number) : [])
 }
 
+/** The linked library record and band in words, for display. */
+async function linkedSpecificationOf(db: Knex, record: CaseRecord): Promise<string | null> {
+  if (record.specificationId === null || record.specificationBand === null) return null
+  const row = (await db('specifications')
+    .where({ id: record.specificationId })
+    .first('designation', 'standard', 'bands', 'unverified')) as
+    | {
+        designation: string
+        standard: string
+        bands: string | SpecificationBand[]
+        unverified: number
+      }
+    | undefined
+  if (!row) return null
+  const bands =
+    typeof row.bands === 'string' ? (JSON.parse(row.bands) as SpecificationBand[]) : row.bands
+  const band = bands[record.specificationBand]
+  const size = band ? describeBand(band) : 'a band the record no longer has'
+  const mark = row.unverified ? ' — unverified starter limits' : ''
+  return `${row.designation} (${row.standard}), ${size}${mark}`
+}
+
 /** Names of everyone on the case, for display. */
 async function peopleOn(db: Knex, record: CaseRecord): Promise<PersonRef[]> {
   const ids = [
@@ -108,7 +132,8 @@ export async function toDetail(
   const people = await peopleOn(db, record)
   const leadInvestigatorName =
     people.find((person) => person.id === record.leadInvestigatorId)?.name ?? null
-  return { ...record, people, leadInvestigatorName, allowedNextStates }
+  const linkedSpecification = await linkedSpecificationOf(db, record)
+  return { ...record, people, leadInvestigatorName, linkedSpecification, allowedNextStates }
 }
 
 /** The client's plain status line: an explicit list of fields, never a copy of the row. */

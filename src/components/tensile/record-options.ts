@@ -12,9 +12,8 @@ export const OFFERED_OPTIONS = [
   'gaugeLength',
   'fitRange',
   'offset',
-  'spec',
-  'rule',
   'uncertainty',
+  'uncertaintySource',
 ] as const
 export type OfferedOption = (typeof OFFERED_OPTIONS)[number]
 

@@ -1,5 +1,9 @@
 import type { DecisionRule as CaseDecisionRule } from '../schemas/case-vocabulary'
-import { evaluateConformity, type ConformityResult, type OverallVerdict } from '../tensile/conformity'
+import {
+  evaluateConformity,
+  type ConformityResult,
+  type OverallVerdict,
+} from '../tensile/conformity'
 import { VERDICT_CAUTION } from '../tensile/cautions'
 import { parseUncertainty } from '../tensile/option-values'
 import type { TensileResult } from '../tensile/result'
@@ -57,7 +61,10 @@ export type CaseOverallConformity =
 function uncertaintyOf(options: Record<string, string>) {
   if (!options.uncertainty) return null
   try {
-    return { expanded: parseUncertainty(options.uncertainty), source: options.uncertaintySource ?? null }
+    return {
+      expanded: parseUncertainty(options.uncertainty),
+      source: options.uncertaintySource ?? null,
+    }
   } catch {
     return null
   }
@@ -79,7 +86,11 @@ export function judgeAgainstLink(
     uncertainty: uncertaintyOf(options),
     edition: link.summary.edition,
   }
-  return { judged: true, link: link.summary, conformity: evaluateConformity(result, link.record, basis) }
+  return {
+    judged: true,
+    link: link.summary,
+    conformity: evaluateConformity(result, link.record, basis),
+  }
 }
 
 const WORST_FIRST: readonly OverallVerdict[] = ['fail', 'inconclusive', 'incomplete', 'pass']

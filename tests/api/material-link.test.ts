@@ -120,7 +120,8 @@ describe('linking a case’s material to a library record and size band', () => 
     const activity = await db('audit_events').where({ caseId: created.id, action: 'case.updated' })
     expect(activity).toHaveLength(1)
     const stored = activity[0].details as string | { changes: object }
-    const details = typeof stored === 'string' ? (JSON.parse(stored) as { changes: object }) : stored
+    const details =
+      typeof stored === 'string' ? (JSON.parse(stored) as { changes: object }) : stored
     expect(details.changes).toEqual({
       specificationId: { from: null, to: recordId },
       specificationBand: { from: null, to: 1 },
@@ -242,7 +243,11 @@ describe('conformity against the linked band', () => {
     expect(judged.judged && judged.conformity.overall).toBe('fail')
     const rm = judged.judged ? judged.conformity.items.filter((i) => i.property === 'Rm') : []
     expect(rm.map((item) => item.verdict)).toEqual(['pass', 'fail']) // ≥ 900, ≤ 1100
-    expect(large.conformity).toMatchObject({ judged: true, overall: 'fail', caution: VERDICT_CAUTION })
+    expect(large.conformity).toMatchObject({
+      judged: true,
+      overall: 'fail',
+      caution: VERDICT_CAUTION,
+    })
     // the stored engine answer did not change with the link
     const row = await db('tensile_records').where({ id: uploaded.id }).first('result')
     expect(JSON.parse(row.result as string).conformity).toBeNull()
@@ -266,7 +271,10 @@ describe('conformity against the linked band', () => {
     const uploaded = await uploadRecord(created.id, 'U-1')
     await link(created.id, { specificationId: starterId, specificationBand: 0, sectionSizeMm: 10 })
     const judged = onlyRecord(await listed(created.id))
-    expect(judged.judged && judged.link).toMatchObject({ designation: '42CrMo4+QT', unverified: true })
+    expect(judged.judged && judged.link).toMatchObject({
+      designation: '42CrMo4+QT',
+      unverified: true,
+    })
     await sessions.lab.post(`/api/cases/${created.id}/tensile-records/${uploaded.id}/confirm`, {
       version: 1,
     })
@@ -296,7 +304,11 @@ describe('conformity against the linked band', () => {
     expect(ids).not.toContain(draft.id)
     const verdict = onlyRecord(seen)
     expect(verdict.judged && verdict.conformity.overall).toBe('pass')
-    expect(seen.conformity).toMatchObject({ judged: true, overall: 'pass', caution: VERDICT_CAUTION })
+    expect(seen.conformity).toMatchObject({
+      judged: true,
+      overall: 'pass',
+      caution: VERDICT_CAUTION,
+    })
     const file = `/api/cases/${created.id}/tensile-records/${shown.id}/file`
     expect((await sessions.client.get(file)).status).toBe(403)
     expect((await sessions.client2.get(file)).status).toBe(404)

@@ -10,7 +10,11 @@ import {
   overallOf,
   type CaseOverallConformity,
 } from '../../../shared/specifications/case-conformity'
-import { summariseSpecimens, type SpecimenResult, type SpecimenSummary } from '../../../shared/tensile'
+import {
+  summariseSpecimens,
+  type SpecimenResult,
+  type SpecimenSummary,
+} from '../../../shared/tensile'
 import { Conflict, ValidationError, NotFound } from '../../errors'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'

@@ -20,8 +20,9 @@ export async function conformityStatement(db: Knex, caseId: number): Promise<str
   const material = await loadCaseMaterial(db, caseId)
   const lines = new Set<string>()
   for (const row of rows) {
-    const options = (typeof row.options === 'string' ? JSON.parse(row.options) : row.options) as
-      Record<string, string>
+    const options = (
+      typeof row.options === 'string' ? JSON.parse(row.options) : row.options
+    ) as Record<string, string>
     for (const result of specimenResults(JSON.parse(row.result) as TensileReport)) {
       for (const line of conformityLines(judgeAgainstLink(result, options, material)))
         lines.add(line)

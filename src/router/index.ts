@@ -1,5 +1,5 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
-import type { Role } from '../../shared/schemas/roles'
+import { STAFF_ROLES, type Role } from '../../shared/schemas/roles'
 import { CASE_SECTIONS } from './case-sections'
 import { installSessionGuard } from './session-guard'
 
@@ -16,6 +16,7 @@ declare module 'vue-router' {
 
 const CASE_OPENERS: readonly Role[] = ['admin', 'investigator']
 const ADMINS: readonly Role[] = ['admin']
+const STAFF: readonly Role[] = STAFF_ROLES
 
 export const router = createRouter({
   history: createWebHistory(),
@@ -89,6 +90,24 @@ export const router = createRouter({
       component: () => import('@/views/ReportReaderView.vue'),
       props: (route) => ({ reportId: Number(route.params.reportId) }),
       meta: { title: 'Report' },
+    },
+    {
+      path: '/specifications',
+      name: 'specifications',
+      component: () => import('@/views/SpecificationLibraryView.vue'),
+      meta: { roles: STAFF, title: 'Specification library' },
+    },
+    {
+      path: '/specifications/new',
+      name: 'specification-new',
+      component: () => import('@/views/SpecificationRecordView.vue'),
+      meta: { roles: ADMINS, title: 'New specification record' },
+    },
+    {
+      path: '/specifications/:specId(\\d+)',
+      name: 'specification',
+      component: () => import('@/views/SpecificationRecordView.vue'),
+      meta: { roles: STAFF, title: 'Specification record' },
     },
     {
       path: '/admin/people',

@@ -37,8 +37,7 @@ describe('mechanical tests', () => {
       .toContain('not recognised as a force unit')
     await page.getByTestId('map-forceColumn').click()
     await page.getByRole('option', { name: 'Force', exact: true }).click()
-    await page.getByTestId('record-spec').click()
-    await page.getByRole('option', { name: '42CrMo4+QT', exact: true }).click()
+    await page.getByTestId('record-uncertainty').fill('10MPa,0.5%')
     await page.getByTestId('fit-range').fill('100:400MPa')
     await expect.poll(() => page.getByTestId('used-columns').textContent()).toContain('“Force”')
     await page.getByTestId('stress-strain-chart').waitFor()
@@ -71,18 +70,44 @@ describe('mechanical tests', () => {
     expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 
-  it('shows the investigator the verdict with its rule and the indicative-verdict caution', async () => {
+  it('lets the investigator link the material and shows the verdict with its rule and caution', async () => {
     const page = browser().page
     const base = inject('baseUrl')
     await page.context().clearCookies()
     await signIn(page, base, 'investigator@demo.test', inject('demoPassword'))
     await openSection(page, base)
+    // the demo links the pin to A193-B7; the investigator links the open record's steel instead
+    await page.getByTestId('section-case').click()
+    await page.getByTestId('edit-case').click()
+    await page.getByTestId('specification-select').click()
+    await page
+      .locator('.p-select-overlay')
+      .getByRole('option', { name: '42CrMo4+QT — EN 10083-3', exact: true })
+      .click()
+    await page.locator('#section-size').fill('14')
+    await page.locator('#section-size').blur()
+    await expect.poll(() => page.getByTestId('band-select').textContent()).toContain('up to 16 mm')
+    expect(await page.getByTestId('link-unverified').textContent()).toContain('Unverified')
+    await page.getByTestId('material-link').scrollIntoViewIfNeeded()
+    await screenshot(page, 'mechanical-tests-link-material')
+    await page.getByTestId('save-case').click()
+    await expect
+      .poll(() => page.getByTestId('case-linked-specification').textContent())
+      .toBe('42CrMo4+QT (EN 10083-3), up to 16 mm — unverified starter limits')
+
+    await page.getByTestId('section-case-mechanical-tests').click()
     const conformity = page.getByTestId('specimen-E2E-T1').getByTestId('tensile-conformity')
-    await expect.poll(() => conformity.textContent()).toContain('against 42CrMo4+QT')
+    await expect
+      .poll(() => conformity.textContent())
+      .toContain('against 42CrMo4+QT (EN 10083-3), size band up to 16 mm')
     expect(await conformity.textContent()).toContain('Decision rule')
+    expect(await conformity.getByTestId('unverified-mark').textContent()).toContain('Unverified')
     expect(await conformity.getByTestId('verdict-caution').textContent()).toContain(
       'Indicative only',
     )
+    const verdict = (await page.getByTestId('case-verdict').textContent())?.replace(/\s+/g, ' ')
+    expect(verdict).toContain('overall against 42CrMo4+QT (EN 10083-3), size band up to 16 mm')
+    expect(verdict).toContain('Indicative only')
     expect(await page.getByTestId('confirm-record').count()).toBe(0)
     await screenshot(page, 'mechanical-tests-investigator')
 
@@ -93,5 +118,28 @@ describe('mechanical tests', () => {
     await overlay.getByTestId('overlay-view').getByText('True (to maximum force)').click()
     await overlay.locator('canvas').scrollIntoViewIfNeeded()
     await screenshot(page, 'mechanical-tests-overlay-true')
+  })
+
+  it('shows the client only confirmed results of their own case, with the verdict, rule and caution', async () => {
+    const page = browser().page
+    const base = inject('baseUrl')
+    await page.context().clearCookies()
+    await signIn(page, base, 'client@demo.test', inject('demoPassword'))
+    await page.goto(`${base}/cases?q=${encodeURIComponent('hook block pin')}`)
+    await page.getByTestId('case-table').getByText(TITLE).click()
+    const results = page.getByTestId('client-test-results')
+    await results.waitFor()
+    const specimen = results.getByTestId('client-specimen-E2E-T1')
+    const conformity = specimen.getByTestId('tensile-conformity')
+    expect(await conformity.textContent()).toContain('Decision rule')
+    expect(await conformity.getByTestId('verdict-caution').textContent()).toContain(
+      'Indicative only',
+    )
+    expect(await results.getByTestId('case-verdict').textContent()).toContain('42CrMo4+QT')
+    for (const control of ['upload-record', 'show-curve', 'confirm-record', 'hardness-table'])
+      expect(await page.getByTestId(control).count(), control).toBe(0)
+    await specimen.scrollIntoViewIfNeeded()
+    await screenshot(page, 'mechanical-tests-client')
+    expect(unexpectedErrors(browser().errors, [{ status: 401, path: '/auth/me' }])).toEqual([])
   })
 })

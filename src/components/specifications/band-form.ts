@@ -110,8 +110,18 @@ export function bandOf(form: BandForm): unknown {
   }
 }
 
+/** The record's own fields only: the library's bookkeeping (id, checks, version) stays out. */
 export function recordFormOf(record: SpecificationCreate): RecordForm {
-  return { ...record, edition: record.edition ?? '', bands: record.bands.map(bandFormOf) }
+  return {
+    designation: record.designation,
+    standard: record.standard,
+    edition: record.edition ?? '',
+    grade: record.grade,
+    productForm: record.productForm,
+    units: record.units,
+    bands: record.bands.map(bandFormOf),
+    source: record.source,
+  }
 }
 
 export function recordOf(form: RecordForm): unknown {

@@ -25,6 +25,7 @@ type Screen =
   | 'laboratory'
   | 'security trail'
   | 'findings'
+  | 'specifications'
 
 const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   {
@@ -38,7 +39,8 @@ const SCREENS_BY_ROLE: { email: string; screens: Screen[] }[] = [
   },
   // a test of its own: many screens with axe each take too long for one test on a busy machine
   { email: 'admin@demo.test', screens: ['security trail'] },
-  { email: 'lab@demo.test', screens: ['home', 'cases', 'case'] },
+  { email: 'admin@demo.test', screens: ['specifications'] },
+  { email: 'lab@demo.test', screens: ['home', 'cases', 'case', 'specifications'] },
   { email: 'reviewer@demo.test', screens: ['home', 'cases', 'case', 'findings', 'review'] },
   { email: 'client@demo.test', screens: ['home', 'cases', 'case', 'reading room', 'report'] },
 ]
@@ -70,6 +72,7 @@ async function openScreen(screen: Screen): Promise<void> {
     'reading room': '/reports',
     laboratory: '/admin/laboratory',
     'security trail': '/admin/security-events',
+    specifications: '/specifications',
   }
   if (screen === 'review') await openIssuedCase('review')
   else if (screen === 'case reports') await openIssuedCase('reports')

@@ -142,7 +142,11 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
     issue: issueRoutes(db, reports),
     amend: amendRoutes(db, reports),
   }
-  const tests = { storage: deps.storage, analyse: deps.analyseTensile ?? analyseInThread }
+  const tests = {
+    storage: deps.storage,
+    analyse: deps.analyseTensile ?? analyseInThread,
+    incomingDir,
+  }
   api.use('/cases', ...signedIn, caseRoutes(db, cases, serviceEvents, evidence, tests, children))
   api.use('/specifications', ...signedIn, specificationRoutes(db))
   api.use('/attachments', ...signedIn, attachmentRoutes(db, cases, serviceEvents))

@@ -14,8 +14,7 @@ import type { ServiceEventService } from '../services/service-events'
 import type { EvidenceServices } from '../services/evidence'
 import { evidenceRoutes } from './evidence'
 import { serviceEventRoutes } from './service-events'
-import { specimenRoutes, tensileRecordRoutes } from './mechanical-tests'
-import type { RecordDeps } from '../services/mechanical-tests/records'
+import { specimenRoutes, tensileRecordRoutes, type RecordRouteDeps } from './mechanical-tests'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 
@@ -28,7 +27,7 @@ function oneCaseRoutes(
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
-  tests: RecordDeps,
+  tests: RecordRouteDeps,
   children: CaseChildRoutes,
 ): Router {
   const router = Router({ mergeParams: true })
@@ -88,7 +87,7 @@ export function caseRoutes(
   cases: CaseService,
   events: ServiceEventService,
   evidence: EvidenceServices,
-  tests: RecordDeps,
+  tests: RecordRouteDeps,
   children: CaseChildRoutes = {},
 ): Router {
   const router = Router()

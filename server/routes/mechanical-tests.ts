@@ -1,3 +1,4 @@
+import { rm } from 'node:fs/promises'
 import { Router, type Request, type Response } from 'express'
 import type { Knex } from 'knex'
 import { z } from 'zod/mini'
@@ -12,7 +13,7 @@ import {
 } from '../../shared/schemas/mechanical-tests'
 import { allowOnCase, caseFileOf } from '../middleware/case-loader'
 import { currentUser } from '../middleware/require-auth'
-import { singleUpload } from '../middleware/upload'
+import { singleUploadToDisk } from '../middleware/upload'
 import { validate } from '../middleware/validate'
 import type { ServiceContext } from '../services/context'
 import {
@@ -32,7 +33,11 @@ const caseIdOf = (res: Response) => caseFileOf(res).id
 const recordIdOf = (res: Response) => (res.locals.params as { recordId: number }).recordId
 
 /** `/api/cases/:id/specimens…`, behind the case loader. */
-export function specimenRoutes(db: Knex, deps: RecordDeps): Router {
+/** The records' dependencies, and where uploads wait while they are checked and analysed. */
+export type RecordRouteDeps = RecordDeps & { incomingDir: string }
+
+export function specimenRoutes(db: Knex, deps: RecordRouteDeps): Router {
+  const { incomingDir } = deps
   const router = Router({ mergeParams: true })
   const recorders = allowOnCase('case.recordTests')
   router.get('/', async (req, res) => {
@@ -46,14 +51,19 @@ export function specimenRoutes(db: Knex, deps: RecordDeps): Router {
     '/:specimenId/tensile-records',
     recorders,
     validate('params', SpecimenParams),
-    singleUpload(MAX_TENSILE_RECORD_BYTES),
+    singleUploadToDisk(MAX_TENSILE_RECORD_BYTES, incomingDir),
     async (req, res) => {
       const { specimenId } = res.locals.params as { specimenId: number }
       const file = req.file as Express.Multer.File
       const ids = { caseId: caseIdOf(res), specimenId }
       const body = req.body as Record<string, unknown> | undefined
-      const data = await uploadRecord(deps, contextOf(req, db), ids, file, body?.options)
-      res.status(201).json({ data })
+      try {
+        const upload = { originalname: file.originalname, path: file.path }
+        const data = await uploadRecord(deps, contextOf(req, db), ids, upload, body?.options)
+        res.status(201).json({ data })
+      } finally {
+        await rm(file.path, { force: true })
+      }
     },
   )
   return router

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs'
 import {
   analyseSpecimens,
   checkTensileOptions,
@@ -7,10 +8,13 @@ import {
 } from '../../shared/tensile'
 import { AppError } from '../errors'
 
+/** A record's bytes, or the file holding them (read where the analysis runs, never copied across). */
+export type UploadSource = Uint8Array | { path: string }
+
 /** What the server asks of the engine: one record's bytes and options → its result. */
 export type TensileAnalyser = (
   name: string,
-  bytes: Uint8Array,
+  source: UploadSource,
   options: TensileOptions,
 ) => Promise<SpecimenResult>
 
@@ -35,9 +39,10 @@ export function checkedOptions(input: unknown): TensileOptions {
  */
 export function analyseBytes(
   name: string,
-  bytes: Uint8Array,
+  source: UploadSource,
   options: TensileOptions,
 ): SpecimenResult {
+  const bytes = source instanceof Uint8Array ? source : readFileSync(source.path)
   const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8')
   const report = analyseSpecimens([{ name, source: text }], options)
   if (Array.isArray(report)) throw new Error('one record gave a set of results')
@@ -45,9 +50,9 @@ export function analyseBytes(
 }
 
 /** An analyser that runs in the calling thread (tests of small records, the command line). */
-export const analyseInThread: TensileAnalyser = (name, bytes, options) => {
+export const analyseInThread: TensileAnalyser = (name, source, options) => {
   try {
-    return Promise.resolve(analyseBytes(name, bytes, options))
+    return Promise.resolve(analyseBytes(name, source, options))
   } catch (error) {
     return Promise.reject(error instanceof TensileInputError ? error : (error as Error))
   }

@@ -77,14 +77,18 @@ export function createAnalysisPool(size: number) {
       if (!slot) return
       const pending = queue.shift()!
       slot.busy = pending
-      slot.worker.postMessage(pending.job, [pending.job.bytes.buffer as ArrayBuffer])
+      const { source } = pending.job
+      const transfer = source instanceof Uint8Array ? [source.buffer as ArrayBuffer] : []
+      slot.worker.postMessage(pending.job, transfer)
     }
   }
 
-  const analyse: TensileAnalyser = (name, bytes, options) =>
+  const analyse: TensileAnalyser = (name, given, options) =>
     new Promise((resolve, reject) => {
-      // A copy of its own, so the transfer never takes a buffer the caller still holds.
-      const job = { id: nextId++, name, bytes: new Uint8Array(bytes), options }
+      // Bytes get a copy of their own, so the transfer never takes a buffer the caller still
+      // holds; a file is read by the worker itself, so nothing large is copied on this thread.
+      const source = given instanceof Uint8Array ? new Uint8Array(given) : { path: given.path }
+      const job = { id: nextId++, name, source, options }
       queue.push({ job, resolve, reject })
       dispatch()
     })

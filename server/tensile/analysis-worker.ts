@@ -1,12 +1,15 @@
 import { parentPort } from 'node:worker_threads'
 import { TensileInputError, type TensileOptions } from '../../shared/tensile'
-import { analyseBytes } from './analyse-upload'
+import { analyseBytes, type UploadSource } from './analyse-upload'
 
-/** One analysis job, as the pool posts it: the bytes travel as a transferred buffer. */
+/**
+ * One analysis job, as the pool posts it: the file's path (read here, off the request thread),
+ * or the bytes as a transferred buffer.
+ */
 export interface AnalysisJob {
   id: number
   name: string
-  bytes: Uint8Array
+  source: UploadSource
   options: TensileOptions
 }
 
@@ -15,7 +18,7 @@ export type AnalysisAnswer =
 
 parentPort?.on('message', (job: AnalysisJob) => {
   try {
-    const result = analyseBytes(job.name, job.bytes, job.options)
+    const result = analyseBytes(job.name, job.source, job.options)
     parentPort?.postMessage({ id: job.id, result } satisfies AnalysisAnswer)
   } catch (error) {
     const input = error instanceof TensileInputError

@@ -1,4 +1,5 @@
-import { fileTypeFromBuffer } from 'file-type'
+import { createReadStream } from 'node:fs'
+import { fileTypeFromBuffer, fileTypeFromFile } from 'file-type'
 import type { Knex } from 'knex'
 import type {
   TensileRecordInvalidate,
@@ -8,7 +9,12 @@ import type {
 import type { SpecimenResult, TensileOptions } from '../../../shared/tensile'
 import { AppError, Conflict, Forbidden, NotFound, ValidationError } from '../../errors'
 import type { FileStorage } from '../../storage/file-storage'
-import { checkedOptions, tensileRefusal, type TensileAnalyser } from '../../tensile/analyse-upload'
+import {
+  checkedOptions,
+  tensileRefusal,
+  type TensileAnalyser,
+  type UploadSource,
+} from '../../tensile/analyse-upload'
 import { recordAudit } from '../audit'
 import type { ServiceContext } from '../context'
 import { judgeAgainstLink } from '../../../shared/specifications/case-conformity'
@@ -42,10 +48,22 @@ export function optionsFromField(field: unknown): TensileOptions {
   return checkedOptions(parsed)
 }
 
+/** An upload held in memory, or waiting in a temporary file (the API's way: never whole in memory). */
+export type UploadedRecord = { originalname: string } & ({ buffer: Buffer } | { path: string })
+
+/** Whether a file holds a NUL byte, read in chunks so no step holds the thread for long. */
+async function fileHasNul(path: string): Promise<boolean> {
+  for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 }))
+    if ((chunk as Buffer).includes(0)) return true
+  return false
+}
+
 /** A testing machine's export is text: anything with a binary signature or NUL bytes is not. */
-async function checkIsText(bytes: Buffer): Promise<void> {
-  const found = await fileTypeFromBuffer(bytes)
-  if (found || bytes.includes(0))
+async function checkIsText(file: UploadedRecord): Promise<void> {
+  const found =
+    'buffer' in file ? await fileTypeFromBuffer(file.buffer) : await fileTypeFromFile(file.path)
+  const nul = 'buffer' in file ? file.buffer.includes(0) : await fileHasNul(file.path)
+  if (found || nul)
     throw new AppError(
       'unsupported_file_type',
       'A raw record must be the testing machine’s text export (CSV, TSV or TXT).',
@@ -70,9 +88,14 @@ function checkVersion(row: RecordRow, version: number): void {
     )
 }
 
-async function analyse(deps: RecordDeps, name: string, bytes: Buffer, options: TensileOptions) {
+async function analyse(
+  deps: RecordDeps,
+  name: string,
+  source: UploadSource,
+  options: TensileOptions,
+) {
   try {
-    return await deps.analyse(name, bytes, options)
+    return await deps.analyse(name, source, options)
   } catch (error) {
     tensileRefusal(error)
   }
@@ -93,16 +116,18 @@ export async function uploadRecord(
   deps: RecordDeps,
   { actor, db }: ServiceContext,
   ids: { caseId: number; specimenId: number },
-  file: { buffer: Buffer; originalname: string },
+  file: UploadedRecord,
   optionsField: unknown,
 ) {
   const { caseId, specimenId } = ids
   await findSpecimen(db, caseId, specimenId)
   const options = optionsFromField(optionsField)
-  await checkIsText(file.buffer)
+  await checkIsText(file)
   const fileName = displayName(file.originalname)
-  const result = await analyse(deps, fileName, file.buffer, options)
-  const stored = await deps.storage.put(file.buffer)
+  const source = 'buffer' in file ? file.buffer : { path: file.path }
+  const result = await analyse(deps, fileName, source, options)
+  const stored =
+    'buffer' in file ? await deps.storage.put(file.buffer) : await deps.storage.putFile(file.path)
   try {
     const id = await db.transaction(async (trx) => {
       await findSpecimen(trx, caseId, specimenId)

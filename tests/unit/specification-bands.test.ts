@@ -124,4 +124,28 @@ describe('judging a result against the case’s link', () => {
     )
     expect(thin.judged && thin.conformity.overall).toBe('pass')
   })
+
+  it('compares ReL when the specification asks for the lower yield, and Rp0.2 without a yield point', () => {
+    // ISO 6892-1 names ReL the lowest stress during plastic yielding; with continuous yielding
+    // there is none, and Rp0.2 stands in (common practice)
+    const reL = { ...band(null, null), yield: { min: 250, kind: 'ReL' as const } }
+    const material = caseMaterialOf(library([reL], 'MPa'), {
+      specificationBand: 0,
+      sectionSizeMm: null,
+      decisionRule: 'simple',
+    })
+    const judged = judgeAgainstLink(result, {}, material)
+    expect(judged.judged && judged.conformity.items[0]).toMatchObject({
+      property: 'ReL',
+      value: 255,
+      verdict: 'pass',
+    })
+    const continuous = { ...result, discontinuousYielding: false } as SpecimenResult
+    const instead = judgeAgainstLink(continuous, {}, material)
+    expect(instead.judged && instead.conformity.items[0]).toMatchObject({
+      property: 'Rp0.2',
+      value: 260,
+      note: 'continuous yielding: Rp0.2 compared in place of ReL',
+    })
+  })
 })

@@ -1,4 +1,6 @@
 import { mergeAttributes, Node } from '@tiptap/core'
+import { Plugin } from '@tiptap/pm/state'
+import { figureIdsIn, withFreshFigureIds } from '../figure-ids'
 import { isLiveBlockKind } from '../../../../shared/findings/live-blocks'
 
 // The schema of the draft's own nodes, without their views, so tests can check it without a
@@ -30,6 +32,13 @@ export const Figure = Node.create({
     }
   },
   parseHTML: () => [{ tag: 'figure[data-figure-id]' }],
+  addProseMirrorPlugins: () => [
+    new Plugin({
+      props: {
+        transformPasted: (slice, view) => withFreshFigureIds(slice, figureIdsIn(view.state.doc)),
+      },
+    }),
+  ],
   renderHTML: ({ node }) => [
     'figure',
     mergeAttributes({

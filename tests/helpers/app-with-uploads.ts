@@ -7,6 +7,14 @@ import type { FileStorage } from '../../server/storage/file-storage'
 import { createLocalStorage } from '../../server/storage/local-storage'
 import { testConfig } from './test-config'
 
+/** Local file storage in a temporary folder of its own; `cleanup()` removes the folder. */
+export function temporaryStorage() {
+  const uploads = mkdtempSync(join(tmpdir(), 'fractolog-test-uploads-'))
+  const storage = createLocalStorage(uploads)
+  const cleanup = () => rmSync(uploads, { recursive: true, force: true })
+  return { uploads, storage, cleanup }
+}
+
 interface AppWithUploadsOptions extends Partial<Omit<AppDeps, 'db' | 'storage'>> {
   /** wraps the folder's storage, e.g. to make a write fail as a full disk would */
   storage?: (local: FileStorage) => FileStorage
@@ -17,9 +25,8 @@ interface AppWithUploadsOptions extends Partial<Omit<AppDeps, 'db' | 'storage'>>
  * so a test can look at what was stored and nothing is left behind: `cleanup()` removes it.
  */
 export function appWithUploads(db: Db, options: AppWithUploadsOptions = {}) {
-  const uploads = mkdtempSync(join(tmpdir(), 'fractolog-test-uploads-'))
+  const { uploads, storage: local, cleanup } = temporaryStorage()
   const incomingDir = join(uploads, 'incoming')
-  const local = createLocalStorage(uploads)
   const storage = options.storage ? options.storage(local) : local
   const app = createApp({
     config: testConfig(),
@@ -29,6 +36,5 @@ export function appWithUploads(db: Db, options: AppWithUploadsOptions = {}) {
     db,
     storage,
   })
-  const cleanup = () => rmSync(uploads, { recursive: true, force: true })
   return { app, uploads, incomingDir, storage, cleanup }
 }

@@ -62,6 +62,7 @@ declare module 'vue' {
     LinkDialog: typeof import('./components/findings/LinkDialog.vue')['default']
     ListPager: typeof import('./components/common/ListPager.vue')['default']
     LiveBlockNodeView: typeof import('./components/findings/nodes/LiveBlockNodeView.vue')['default']
+    MailTable: typeof import('./components/mail/MailTable.vue')['default']
     MaterialLinkFields: typeof import('./components/case/record/MaterialLinkFields.vue')['default']
     Message: typeof import('primevue/message')['default']
     MultiSelect: typeof import('primevue/multiselect')['default']

@@ -1,21 +1,14 @@
-import express, { Router, type RequestHandler } from 'express'
+import express, { Router } from 'express'
 import type { Knex } from 'knex'
-import { isStaff } from '../../shared/access/policy'
 import { MAX_DOCUMENT_BYTES } from '../../shared/findings/document'
 import { FindingsSave } from '../../shared/schemas/findings'
-import { NotFound } from '../errors'
 import { allowOnCase, caseFileOf } from '../middleware/case-loader'
+import { hiddenFromClients } from '../middleware/hidden-from-clients'
 import { currentUser } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import type { FindingsService } from '../services/findings'
 import { draftPdfRoute, type PdfRenderer } from './report-pdf'
 import type { PhotoService } from '../services/photos/photos'
-
-/** Drafts do not exist for a client: they learn nothing, not even that one is being written. */
-export const hiddenFromClients: RequestHandler = (req, _res, next) => {
-  if (!isStaff(currentUser(req))) throw new NotFound()
-  next()
-}
 
 /**
  * A draft may be far larger than the API's usual 100 kB bodies; this parser runs first for the

@@ -2,10 +2,10 @@ import { Router } from 'express'
 import type { Knex } from 'knex'
 import { HardnessCreate } from '../../shared/schemas/hardness'
 import { allowOnCase, caseFileOf } from '../middleware/case-loader'
+import { hiddenFromClients } from '../middleware/hidden-from-clients'
 import { currentUser } from '../middleware/require-auth'
 import { validate } from '../middleware/validate'
 import { listHardness, recordHardness } from '../services/hardness'
-import { hiddenFromClients } from './findings'
 
 /** `/api/cases/:id/hardness`, behind the case loader: the lab's readings, for staff only. */
 export function hardnessRoutes(db: Knex): Router {

@@ -4,7 +4,7 @@ import { caseFileOf } from '../middleware/case-loader'
 import { currentUser } from '../middleware/require-auth'
 import type { PhotoService } from '../services/photos/photos'
 import type { ReportPdfInput } from '../services/reports/pdf'
-import { draftPdfInput } from '../services/reports/draft-pdf-input'
+import { draftPdfInput } from '../services/reports/pdf-input'
 
 export type PdfRenderer = (input: ReportPdfInput) => Promise<Buffer>
 

@@ -3,13 +3,13 @@ import type { Knex } from 'knex'
 import { CommentParams, ReviewCommentCreate, RevisionRequest } from '../../shared/schemas/review'
 import { allowPart } from '../middleware/allow-part'
 import { allowOnCase, caseFileOf } from '../middleware/case-loader'
+import { hiddenFromClients } from '../middleware/hidden-from-clients'
 import { currentUser } from '../middleware/require-auth'
 import { parseOrThrow, validate } from '../middleware/validate'
 import { findCase } from '../services/cases/case-record'
 import type { ServiceContext } from '../services/context'
 import type { ReviewService } from '../services/review'
 import { addComment, listComments, resolveComment } from '../services/review/comments'
-import { hiddenFromClients } from './findings'
 
 const contextOf = (req: Request, db: Knex): ServiceContext => ({ actor: currentUser(req), db })
 

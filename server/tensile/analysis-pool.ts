@@ -1,9 +1,8 @@
-import { createRequire } from 'node:module'
-import { pathToFileURL } from 'node:url'
-import { Worker } from 'node:worker_threads'
+import type { Worker } from 'node:worker_threads'
 import { TensileInputError, type SpecimenResult } from '../../shared/tensile'
 import type { TensileAnalyser } from './analyse-upload'
 import type { AnalysisAnswer, AnalysisJob } from './analysis-worker'
+import { startWorker } from '../start-worker'
 
 interface Pending {
   job: AnalysisJob
@@ -16,23 +15,7 @@ interface Slot {
   busy: Pending | null
 }
 
-// Compiled, the worker sits beside the server bundle as analysis-worker.js; from source (tsx,
-// vitest) it is the TypeScript file, run through tsx's loader registered inside the worker
-// (Node 20 does not pass an --import loader on to worker threads).
-const COMPILED = !import.meta.url.endsWith('.ts')
-
-function startWorker(): Worker {
-  if (COMPILED) return new Worker(new URL('./analysis-worker.js', import.meta.url))
-  const workerFile = new URL('./analysis-worker.ts', import.meta.url).href
-  // require.resolve finds the CommonJS build of tsx's ESM API; the worker imports its ESM twin.
-  const tsxApi = pathToFileURL(
-    createRequire(import.meta.url)
-      .resolve('tsx/esm/api')
-      .replace(/\.cjs$/, '.mjs'),
-  ).href
-  const boot = `import(${JSON.stringify(tsxApi)}).then(({ register }) => { register(); return import(${JSON.stringify(workerFile)}) })`
-  return new Worker(boot, { eval: true })
-}
+const ANALYSIS_WORKER = { source: './analysis-worker.ts', compiled: 'analysis-worker.js' }
 
 /**
  * Tensile analyses off the request thread: a fixed number of worker threads, started on first
@@ -58,7 +41,7 @@ export function createAnalysisPool(size: number) {
   }
 
   function addSlot(): Slot {
-    const slot: Slot = { worker: startWorker(), busy: null }
+    const slot: Slot = { worker: startWorker(import.meta.url, ANALYSIS_WORKER), busy: null }
     slot.worker.on('message', (answer: AnalysisAnswer) => settle(slot, answer))
     slot.worker.on('error', (error) => {
       slot.busy?.reject(error)

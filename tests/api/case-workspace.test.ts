@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { createCaseService } from '../../server/services/cases'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -10,8 +10,8 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'other' | 'lab' | 'reviewer' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let orgA: number
 let orgB: number
 
@@ -19,16 +19,16 @@ beforeAll(async () => {
   await resetDatabase(db)
   orgA = await makeOrganisation(db, 'Alder Hoists')
   orgB = await makeOrganisation(db, 'Birch Valves')
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.other = await makePerson(db, ['investigator', 'reviewer'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: orgA })
-  people.client2 = await makePerson(db, ['client'], { organisationId: orgB })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    other: ['investigator', 'reviewer'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: orgA },
+    client2: { roles: ['client'], organisationId: orgB },
+  })
+  sessions = await signInAll(app, people)
 })
 afterAll(() => db.destroy())
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -12,24 +12,24 @@ const day = (offset: number) =>
   new Date(today.getTime() + offset * 86_400_000).toISOString().slice(0, 10)
 
 type Key = 'admin' | 'lead' | 'co' | 'lab' | 'reviewer' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 const ids = {} as Record<'late' | 'soon' | 'review' | 'issued' | 'other', number>
 
 beforeAll(async () => {
   await resetDatabase(db)
   const own = await makeOrganisation(db)
   const other = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.co = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: own })
-  people.client2 = await makePerson(db, ['client'], { organisationId: other })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    co: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: own },
+    client2: { roles: ['client'], organisationId: other },
+  })
+  sessions = await signInAll(app, people)
   const team = {
     leadInvestigatorId: people.lead.id,
     labTechnicianId: people.lab.id,

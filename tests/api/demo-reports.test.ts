@@ -1,19 +1,12 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import { seedDemoIfEmpty } from '../../seeds/demo'
 import { signedIn } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-demo-reports-'))
-const storage = createLocalStorage(uploads)
+const { app, storage, cleanup } = appWithUploads(db)
 const password = 'demo password 2'
-const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent', storage })
 
 beforeAll(async () => {
   await resetDatabase(db)
@@ -21,7 +14,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 const caseIdOf = async (title: string) =>

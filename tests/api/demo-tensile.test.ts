@@ -1,17 +1,13 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import { loadCaseMaterial } from '../../server/services/mechanical-tests/material-link'
 import { judgeAgainstLink } from '../../shared/specifications/case-conformity'
 import { analyseSpecimens, type SpecimenResult } from '../../shared/tensile'
 import { seedDemoIfEmpty } from '../../seeds/demo'
+import { temporaryStorage } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-demo-'))
-const storage = createLocalStorage(uploads)
+const { storage, cleanup } = temporaryStorage()
 
 beforeAll(async () => {
   await resetDatabase(db)
@@ -19,7 +15,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 describe('the demo’s tensile tests', () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -9,8 +9,8 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'lab' | 'reviewer' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let caseNumber: string
 
@@ -23,15 +23,15 @@ beforeAll(async () => {
   await resetDatabase(db)
   const orgA = await makeOrganisation(db)
   const orgB = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: orgA })
-  people.client2 = await makePerson(db, ['client'], { organisationId: orgB })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: orgA },
+    client2: { roles: ['client'], organisationId: orgB },
+  })
+  sessions = await signInAll(app, people)
   const record = await makeCase(db, orgA, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     labTechnicianId: people.lab.id,

@@ -1,13 +1,8 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import { makeCase, makeOrganisation, makePerson } from '../factories'
-import { plainJpeg } from '../factories/images'
+import { uploadPhoto } from '../factories/photos'
 import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 /*
@@ -21,28 +16,12 @@ import { createTestDb, resetDatabase } from '../helpers/test-db'
  */
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-findings-hostile-'))
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-})
+const { app, cleanup } = appWithUploads(db)
 
 let lead: ApiSession
 let caseId: number
 let photoId: number
 let foreignPhotoId: number
-
-async function uploadPhoto(id: number): Promise<number> {
-  const response = await lead.agent
-    .post(`/api/cases/${id}/photos`)
-    .set('X-CSRF-Token', lead.token)
-    .attach('file', await plainJpeg(), 'face.jpg')
-  expect(response.status, JSON.stringify(response.body)).toBe(201)
-  return response.body.data.id as number
-}
 
 beforeAll(async () => {
   await resetDatabase(db)
@@ -53,13 +32,13 @@ beforeAll(async () => {
   caseId = (await makeCase(db, org, admin.id, { leadInvestigatorId: person.id })).id
   const otherCase = (await makeCase(db, org, admin.id, { leadInvestigatorId: person.id })).id
   await db('cases').whereIn('id', [caseId, otherCase]).update({ status: 'drafting' })
-  photoId = await uploadPhoto(caseId)
-  foreignPhotoId = await uploadPhoto(otherCase)
+  photoId = await uploadPhoto(lead, caseId, undefined, 'face.jpg')
+  foreignPhotoId = await uploadPhoto(lead, otherCase, undefined, 'face.jpg')
   await lead.post(`/api/cases/${caseId}/observations`, { text: 'Beach marks' }).expect(201)
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 type Json = Record<string, unknown>

@@ -1,56 +1,36 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import { findingsTemplate } from '../../shared/findings/template'
 import type { CaseState } from '../../shared/workflow/case-states'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { plainJpeg } from '../factories/images'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { uploadPhoto } from '../factories/photos'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-findings-'))
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-})
+const { app, cleanup } = appWithUploads(db)
 
 type Key = 'admin' | 'lead' | 'co' | 'otherInvestigator' | 'lab' | 'reviewer' | 'client'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let otherCaseId: number
 let photoId: number
 let otherCasePhotoId: number
 
-async function uploadPhoto(session: ApiSession, id: number): Promise<number> {
-  const response = await session.agent
-    .post(`/api/cases/${id}/photos`)
-    .set('X-CSRF-Token', session.token)
-    .attach('file', await plainJpeg(), 'fracture.jpg')
-  expect(response.status, JSON.stringify(response.body)).toBe(201)
-  return response.body.data.id as number
-}
-
 beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.co = await makePerson(db, ['investigator'])
-  people.otherInvestigator = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  for (const key of Object.keys(people) as Key[])
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    co: ['investigator'],
+    otherInvestigator: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+  })
+  sessions = await signInAll(app, people)
   const parts = {
     leadInvestigatorId: people.lead.id,
     coInvestigatorIds: [people.co.id],
@@ -67,7 +47,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 const findings = (id = caseId) => `/api/cases/${id}/findings`

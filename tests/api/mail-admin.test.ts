@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { ApiSession, signedIn } from '../helpers/api-session'
-import { mailRig, outboxRows, receivedBy, testClock } from '../helpers/mail'
+import { makeCase, makeOrganisation, makePeople, makePerson, type TestPerson } from '../factories'
+import { ApiSession, signedIn, signInAll } from '../helpers/api-session'
+import { freshMailRig, type MailRig, outboxRows, receivedBy, type TestClock } from '../helpers/mail'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -11,30 +11,26 @@ const demoApp = createApp({ db, config: testConfig({ demoData: true }), clientDi
 const plainApp = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'lab' | 'reviewer' | 'client'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let organisationId: number
-let clock: ReturnType<typeof testClock>
-let rig: Awaited<ReturnType<typeof mailRig>>
+let clock: TestClock
+let rig: MailRig
 
 beforeAll(async () => {
   await resetDatabase(db)
   organisationId = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(demoApp, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId },
+  })
+  sessions = await signInAll(demoApp, people)
 })
 beforeEach(async () => {
-  await db('outbox_attempts').delete()
-  await db('outbox_messages').delete()
-  await db('received_mail').delete()
-  clock = testClock()
-  rig = await mailRig(db, clock.now)
+  ;({ clock, rig } = await freshMailRig(db))
   return () => rig.close()
 })
 afterAll(() => db.destroy())

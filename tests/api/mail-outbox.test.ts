@@ -2,9 +2,16 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import { createCaseService } from '../../server/services/cases'
 import type { Role } from '../../shared/schemas/roles'
-import { makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { mailRig, outboxRows, PUBLIC_URL, receivedBy, testClock } from '../helpers/mail'
+import { makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import {
+  freshMailRig,
+  type MailRig,
+  outboxRows,
+  PUBLIC_URL,
+  receivedBy,
+  type TestClock,
+} from '../helpers/mail'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -12,31 +19,27 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'lead2' | 'lab' | 'reviewer' | 'reviewer2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let organisationId: number
-let clock: ReturnType<typeof testClock>
-let rig: Awaited<ReturnType<typeof mailRig>>
+let clock: TestClock
+let rig: MailRig
 
 beforeAll(async () => {
   await resetDatabase(db)
   organisationId = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lead2 = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.reviewer2 = await makePerson(db, ['reviewer'])
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lead2: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    reviewer2: ['reviewer'],
+  })
+  sessions = await signInAll(app, people)
 })
 beforeEach(async () => {
-  await db('outbox_attempts').delete()
-  await db('outbox_messages').delete()
-  await db('received_mail').delete()
-  clock = testClock()
-  rig = await mailRig(db, clock.now)
+  ;({ clock, rig } = await freshMailRig(db))
   return () => rig.close()
 })
 afterAll(() => db.destroy())

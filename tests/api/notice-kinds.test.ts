@@ -2,9 +2,9 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import type { Notice } from '../../server/services/notices/notice-kinds'
 import { queueNotice } from '../../server/services/notices/queue-notice'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
 import { signedIn } from '../helpers/api-session'
-import { mailRig, PUBLIC_URL, testClock } from '../helpers/mail'
+import { freshMailRig, type MailRig, PUBLIC_URL, type TestClock } from '../helpers/mail'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -12,10 +12,10 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'lab' | 'reviewer' | 'client' | 'client2' | 'gone' | 'other'
-const people = {} as Record<Key, TestPerson>
+let people: Record<Key, TestPerson>
 let caseId: number
 let caseNumber: string
-let rig: Awaited<ReturnType<typeof mailRig>>
+let rig: MailRig
 
 const PARTIES = [
   {
@@ -37,14 +37,16 @@ beforeAll(async () => {
   await resetDatabase(db)
   const orgA = await makeOrganisation(db)
   const orgB = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: orgA })
-  people.client2 = await makePerson(db, ['client'], { organisationId: orgA })
-  people.gone = await makePerson(db, ['client'], { organisationId: orgA, active: false })
-  people.other = await makePerson(db, ['client'], { organisationId: orgB })
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: orgA },
+    client2: { roles: ['client'], organisationId: orgA },
+    gone: { roles: ['client'], organisationId: orgA, active: false },
+    other: { roles: ['client'], organisationId: orgB },
+  })
   const record = await makeCase(db, orgA, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     labTechnicianId: people.lab.id,
@@ -54,13 +56,9 @@ beforeAll(async () => {
   caseId = record.id
   caseNumber = record.number
 })
-let clock: ReturnType<typeof testClock>
+let clock: TestClock
 beforeEach(async () => {
-  await db('outbox_attempts').delete()
-  await db('outbox_messages').delete()
-  await db('received_mail').delete()
-  clock = testClock()
-  rig = await mailRig(db, clock.now)
+  ;({ clock, rig } = await freshMailRig(db))
   return () => rig.close()
 })
 afterAll(() => db.destroy())

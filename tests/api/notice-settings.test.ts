@@ -3,9 +3,9 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
 import type { Notice } from '../../server/services/notices/notice-kinds'
 import { queueNotice } from '../../server/services/notices/queue-notice'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { mailRig, testClock } from '../helpers/mail'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { freshMailRig, type MailRig } from '../helpers/mail'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -13,22 +13,22 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'admin' | 'lead' | 'reviewer' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
-let rig: Awaited<ReturnType<typeof mailRig>>
+let rig: MailRig
 
 beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  people.client2 = await makePerson(db, ['client'], { organisationId: org })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+    client2: { roles: ['client'], organisationId: org },
+  })
+  sessions = await signInAll(app, people)
   caseId = (
     await makeCase(db, org, people.admin.id, {
       leadInvestigatorId: people.lead.id,
@@ -38,10 +38,7 @@ beforeAll(async () => {
 })
 beforeEach(async () => {
   await db('notice_opt_outs').delete()
-  await db('outbox_attempts').delete()
-  await db('outbox_messages').delete()
-  await db('received_mail').delete()
-  rig = await mailRig(db, testClock().now)
+  ;({ rig } = await freshMailRig(db))
   return () => rig.close()
 })
 afterAll(() => db.destroy())

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { makeCase, makeOrganisation, makePeople, makePerson, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
 import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
@@ -9,8 +9,8 @@ const db = createTestDb()
 const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
 
 type Key = 'lead' | 'lab' | 'reviewer' | 'client'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let otherCaseId: number
 
@@ -18,13 +18,13 @@ beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
   const admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    lead: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+  })
+  sessions = await signInAll(app, people)
   const options = { leadInvestigatorId: people.lead.id, labTechnicianId: people.lab.id }
   caseId = (await makeCase(db, org, admin.id, options)).id
   otherCaseId = (await makeCase(db, org, admin.id, options)).id

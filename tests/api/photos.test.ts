@@ -1,15 +1,12 @@
 import { createHash } from 'node:crypto'
-import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { readdirSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
 import type { FileStorage } from '../../server/storage/file-storage'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import { sweepUploads } from '../../server/storage/sweep-uploads'
 import { MAX_PHOTO_BYTES } from '../../shared/schemas/photos'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
 import { tinyPdf } from '../factories/files'
 import {
   plainJpeg,
@@ -20,49 +17,41 @@ import {
   sixteenBitTiff,
   truncatedJpeg,
 } from '../factories/images'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-photos-'))
-const incomingDir = join(uploads, 'incoming')
-const local = createLocalStorage(uploads)
 // lets a test make the third stored file fail, as a full disk would
 const faults = { failOnPut: false }
-const storage: FileStorage = {
-  ...local,
-  put: (bytes) => (faults.failOnPut ? Promise.reject(new Error('disk full')) : local.put(bytes)),
-}
 const logged: unknown[] = []
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage,
-  incomingDir,
+const { app, uploads, incomingDir, storage, cleanup } = appWithUploads(db, {
+  storage: (local): FileStorage => ({
+    ...local,
+    put: (bytes) => (faults.failOnPut ? Promise.reject(new Error('disk full')) : local.put(bytes)),
+  }),
   log: (error) => logged.push(error),
 })
 
 type Key = 'admin' | 'lead' | 'lab' | 'otherLab' | 'reviewer' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 
 beforeAll(async () => {
   await resetDatabase(db)
   const orgA = await makeOrganisation(db)
   const orgB = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.otherLab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: orgA })
-  people.client2 = await makePerson(db, ['client'], { organisationId: orgB })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    otherLab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: orgA },
+    client2: { roles: ['client'], organisationId: orgB },
+  })
+  sessions = await signInAll(app, people)
   const made = await makeCase(db, orgA, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     labTechnicianId: people.lab.id,
@@ -71,7 +60,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 const photosPath = () => `/api/cases/${caseId}/photos`
@@ -222,7 +211,7 @@ describe('uploading photographs', () => {
   it('sweeps at start what a crash left: waiting uploads, half-written files, files no record names', async () => {
     await addPhoto()
     const before = filesOnDisk().stored
-    const stray = await local.put(Buffer.from('left by a crash'))
+    const stray = await storage.put(Buffer.from('left by a crash'))
     writeFileSync(join(uploads, `${stray.key}.partial`), 'half')
     writeFileSync(join(incomingDir, 'interrupted.upload'), 'part of an image')
     expect(await sweepUploads(db, uploads)).toBe(3)

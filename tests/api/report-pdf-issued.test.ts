@@ -1,32 +1,22 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
 import { renderReportPdf } from '../../server/services/reports/pdf'
-import { createLocalStorage } from '../../server/storage/local-storage'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
 import { plainJpeg } from '../factories/images'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { uploadPhoto } from '../factories/photos'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { flat, pdfPageTexts } from '../helpers/pdf-text'
-import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-issued-pdf-'))
 // laid out in this thread: the worker is measured by `npm run bench:pdf`
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-  renderReportPdf,
-})
+const { app, uploads, cleanup } = appWithUploads(db, { renderReportPdf })
 
 type Key = 'admin' | 'lead' | 'reviewer' | 'client' | 'otherClient'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let caseNumber: string
 let photoId: number
@@ -70,13 +60,14 @@ beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
   const otherOrg = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  people.otherClient = await makePerson(db, ['client'], { organisationId: otherOrg })
-  for (const key of Object.keys(people) as Key[])
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+    otherClient: { roles: ['client'], organisationId: otherOrg },
+  })
+  sessions = await signInAll(app, people)
   const created = await makeCase(db, org, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     reviewerId: people.reviewer.id,
@@ -84,16 +75,11 @@ beforeAll(async () => {
   caseId = created.id
   caseNumber = created.number
   await db('cases').where({ id: caseId }).update({ status: 'drafting' })
-  const upload = await sessions.lead.agent
-    .post(at('/photos'))
-    .set('X-CSRF-Token', sessions.lead.token)
-    .attach('file', await plainJpeg(400, 300), 'fracture.jpg')
-  expect(upload.status).toBe(201)
-  photoId = upload.body.data.id as number
+  photoId = await uploadPhoto(sessions.lead, caseId, await plainJpeg(400, 300))
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 describe('the PDF of an issued revision', () => {

@@ -1,32 +1,21 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { uploadPhoto } from '../factories/photos'
 import { figurePng } from '../factories/report-pdf-input'
-import { signedIn, type ApiSession } from '../helpers/api-session'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { pdfPagesAsPng } from '../helpers/pdf-pages'
 import { flat, pdfPageTexts } from '../helpers/pdf-text'
-import { testConfig } from '../helpers/test-config'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-report-pdf-'))
 // the server's own way: each PDF is laid out in a worker thread
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-})
+const { app, cleanup } = appWithUploads(db)
 
 type Key = 'admin' | 'lead' | 'lab' | 'reviewer' | 'client'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let caseNumber: string
 
@@ -36,13 +25,14 @@ const paragraph = (...content: object[]) => ({ type: 'paragraph', content })
 beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db, 'Tallowmere Cranes Ltd')
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  for (const key of Object.keys(people) as Key[])
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+  })
+  sessions = await signInAll(app, people)
   await db('users').where({ id: people.lead.id }).update({ name: 'Tomas Reyke' })
   const created = await makeCase(db, org, people.admin.id, {
     leadInvestigatorId: people.lead.id,
@@ -55,7 +45,7 @@ beforeAll(async () => {
 }, 60_000)
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 describe('laboratory settings', () => {
@@ -101,18 +91,10 @@ describe('laboratory settings', () => {
 
 describe('the draft preview PDF', () => {
   it('prints the case’s current draft, watermarked on every page, with its figure and opinion', async () => {
-    const upload = await sessions.lead.agent
-      .post(`/api/cases/${caseId}/photos`)
-      .set('X-CSRF-Token', sessions.lead.token)
-      .attach(
-        'file',
-        await sharp(await figurePng(3, 800, 600))
-          .jpeg()
-          .toBuffer(),
-        'face.jpg',
-      )
-    expect(upload.status, JSON.stringify(upload.body)).toBe(201)
-    const photoId = upload.body.data.id as number
+    const face = await sharp(await figurePng(3, 800, 600))
+      .jpeg()
+      .toBuffer()
+    const photoId = await uploadPhoto(sessions.lead, caseId, face, 'face.jpg')
     for (const observation of ['Beach marks on the fracture face', 'Ratchet marks at the root'])
       await sessions.lead
         .post(`/api/cases/${caseId}/observations`, { text: observation })

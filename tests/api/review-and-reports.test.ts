@@ -1,26 +1,17 @@
 import { createHash } from 'node:crypto'
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
 import type { CaseState } from '../../shared/workflow/case-states'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
 import { plainJpeg } from '../factories/images'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { uploadPhoto } from '../factories/photos'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-review-'))
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-})
+const { app, uploads, cleanup } = appWithUploads(db)
 
 type Key =
   | 'admin'
@@ -33,8 +24,8 @@ type Key =
   | 'secondLead'
   | 'client'
   | 'otherClient'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let caseNumber: string
 let photoId: number
@@ -72,18 +63,19 @@ beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
   const otherOrg = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.co = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.otherReviewer = await makePerson(db, ['reviewer'])
-  people.both = await makePerson(db, ['investigator', 'reviewer'])
-  people.secondLead = await makePerson(db, ['investigator'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  people.otherClient = await makePerson(db, ['client'], { organisationId: otherOrg })
-  for (const key of Object.keys(people) as Key[])
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    co: ['investigator'],
+    lab: ['lab'],
+    reviewer: ['reviewer'],
+    otherReviewer: ['reviewer'],
+    both: ['investigator', 'reviewer'],
+    secondLead: ['investigator'],
+    client: { roles: ['client'], organisationId: org },
+    otherClient: { roles: ['client'], organisationId: otherOrg },
+  })
+  sessions = await signInAll(app, people)
   const created = await makeCase(db, org, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     coInvestigatorIds: [people.co.id],
@@ -93,12 +85,7 @@ beforeAll(async () => {
   caseId = created.id
   caseNumber = created.number
   await db('cases').where({ id: caseId }).update({ status: 'drafting' })
-  const upload = await sessions.lead.agent
-    .post(at('/photos'))
-    .set('X-CSRF-Token', sessions.lead.token)
-    .attach('file', await plainJpeg(400, 300), 'fracture.jpg')
-  expect(upload.status).toBe(201)
-  photoId = upload.body.data.id as number
+  photoId = await uploadPhoto(sessions.lead, caseId, await plainJpeg(400, 300))
   await sessions.lead
     .post(at('/service-events'), {
       kind: 'installation',
@@ -109,7 +96,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 describe('review: submit, comment, revise, approve', () => {

@@ -1,27 +1,15 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-review-notices-'))
-const app = createApp({
-  db,
-  config: testConfig(),
-  clientDir: '/nonexistent',
-  storage: createLocalStorage(uploads),
-  incomingDir: join(uploads, 'incoming'),
-})
+const { app, cleanup } = appWithUploads(db)
 
 type Key = 'admin' | 'lead' | 'reviewer' | 'client'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 let caseNumber: string
 
@@ -62,12 +50,13 @@ const lastId = async () =>
 beforeAll(async () => {
   await resetDatabase(db)
   const org = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.reviewer = await makePerson(db, ['reviewer'])
-  people.client = await makePerson(db, ['client'], { organisationId: org })
-  for (const key of Object.keys(people) as Key[])
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    reviewer: ['reviewer'],
+    client: { roles: ['client'], organisationId: org },
+  })
+  sessions = await signInAll(app, people)
   const created = await makeCase(db, org, people.admin.id, {
     leadInvestigatorId: people.lead.id,
     reviewerId: people.reviewer.id,
@@ -78,7 +67,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 describe('e-mail notices of review, issue and questions (queued with the action)', () => {

@@ -1,43 +1,37 @@
 import { createHash } from 'node:crypto'
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createApp } from '../../server/app'
-import { createLocalStorage } from '../../server/storage/local-storage'
-import { makeCase, makeOrganisation, makePerson, type TestPerson } from '../factories'
+import { makeCase, makeOrganisation, makePeople, type TestPerson } from '../factories'
 import { tinyPdf, tinyPng } from '../factories/files'
-import { signedIn, type ApiSession } from '../helpers/api-session'
-import { testConfig } from '../helpers/test-config'
+import { signInAll, type ApiSession } from '../helpers/api-session'
+import { appWithUploads } from '../helpers/app-with-uploads'
 import { createTestDb, resetDatabase } from '../helpers/test-db'
 
 const db = createTestDb()
-const uploads = mkdtempSync(join(tmpdir(), 'fractolog-uploads-'))
-const storage = createLocalStorage(uploads)
-const app = createApp({ db, config: testConfig(), clientDir: '/nonexistent', storage })
+const { app, uploads, cleanup } = appWithUploads(db)
 
 type Key = 'admin' | 'lead' | 'lab' | 'client' | 'client2'
-const people = {} as Record<Key, TestPerson>
-const sessions = {} as Record<Key, ApiSession>
+let people: Record<Key, TestPerson>
+let sessions: Record<Key, ApiSession>
 let caseId: number
 
 beforeAll(async () => {
   await resetDatabase(db)
   const orgA = await makeOrganisation(db)
   const orgB = await makeOrganisation(db)
-  people.admin = await makePerson(db, ['admin'])
-  people.lead = await makePerson(db, ['investigator'])
-  people.lab = await makePerson(db, ['lab'])
-  people.client = await makePerson(db, ['client'], { organisationId: orgA })
-  people.client2 = await makePerson(db, ['client'], { organisationId: orgB })
-  for (const key of Object.keys(people) as Key[]) {
-    sessions[key] = await signedIn(app, people[key].email, people[key].password)
-  }
+  people = await makePeople(db, {
+    admin: ['admin'],
+    lead: ['investigator'],
+    lab: ['lab'],
+    client: { roles: ['client'], organisationId: orgA },
+    client2: { roles: ['client'], organisationId: orgB },
+  })
+  sessions = await signInAll(app, people)
   caseId = (await makeCase(db, orgA, people.admin.id, { leadInvestigatorId: people.lead.id })).id
 })
 afterAll(async () => {
   await db.destroy()
-  rmSync(uploads, { recursive: true, force: true })
+  cleanup()
 })
 
 const events = () => `/api/cases/${caseId}/service-events`

@@ -22,16 +22,18 @@ export interface TestPerson {
   password: string
 }
 
+export interface PersonOptions {
+  organisationId?: number
+  mustChangePassword?: boolean
+  active?: boolean
+  /** enrolled with a second factor: staff are by default, as they must be to work */
+  secondFactor?: boolean
+}
+
 export async function makePerson(
   db: Knex,
   roles: Role[],
-  options: {
-    organisationId?: number
-    mustChangePassword?: boolean
-    active?: boolean
-    /** enrolled with a second factor: staff are by default, as they must be to work */
-    secondFactor?: boolean
-  } = {},
+  options: PersonOptions = {},
 ): Promise<TestPerson> {
   const email = `${unique(roles.join('-'))}@example.test`.toLowerCase()
   const enrolled = options.secondFactor ?? roles.some((role) => role !== 'client')
@@ -49,6 +51,24 @@ export async function makePerson(
   })) as number[]
   await db('user_roles').insert(roles.map((role) => ({ userId: id, role })))
   return { id: id as number, email, password: TEST_PASSWORD }
+}
+
+/** Their roles, or their roles with the other choices of `makePerson`. */
+export type PersonSpec = Role[] | ({ roles: Role[] } & PersonOptions)
+
+/** One person per key, made one after the other in the order given. */
+export async function makePeople<Key extends string>(
+  db: Knex,
+  specs: Record<Key, PersonSpec>,
+): Promise<Record<Key, TestPerson>> {
+  const people = {} as Record<Key, TestPerson>
+  for (const key of Object.keys(specs) as Key[]) {
+    const spec = specs[key]
+    people[key] = Array.isArray(spec)
+      ? await makePerson(db, spec)
+      : await makePerson(db, spec.roles, spec)
+  }
+  return people
 }
 
 /** A case opened through the real service, by an administrator-like actor `createdBy`. */

@@ -76,3 +76,14 @@ export async function signedIn(app: Express | string, email: string, password: s
   if (response.status !== 200) throw new Error(`sign-in failed: ${response.status}`)
   return session
 }
+
+/** Signs each person in fully, one after the other, under the same key as in `people`. */
+export async function signInAll<Key extends string>(
+  app: Express | string,
+  people: Record<Key, { email: string; password: string }>,
+): Promise<Record<Key, ApiSession>> {
+  const sessions = {} as Record<Key, ApiSession>
+  for (const key of Object.keys(people) as Key[])
+    sessions[key] = await signedIn(app, people[key].email, people[key].password)
+  return sessions
+}

@@ -47,6 +47,22 @@ export async function mailRig(db: Knex, clock: () => Date) {
   }
 }
 
+/**
+ * For a test that starts with no mail: empties the outbox, its attempts and the local mailbox,
+ * then starts a rig on a new hand-moved clock. Close it (`rig.close()`) after the test.
+ */
+export async function freshMailRig(db: Knex) {
+  await db('outbox_attempts').delete()
+  await db('outbox_messages').delete()
+  await db('received_mail').delete()
+  const clock = testClock()
+  const rig = await mailRig(db, clock.now)
+  return { clock, rig }
+}
+
+export type TestClock = ReturnType<typeof testClock>
+export type MailRig = Awaited<ReturnType<typeof mailRig>>
+
 export interface Delivered {
   to: string
   raw: string

@@ -16,7 +16,7 @@ import { currentApprovalRow } from '../review/approvals'
 import { contentSha256 } from '../review/content-hash'
 import { guardAction } from '../review/guard'
 import { notifyIssued } from '../review/notify'
-import { issuedPdfInput } from './draft-pdf-input'
+import { issuedPdfInput } from './pdf-input'
 import type { ReportPdfInput } from './pdf'
 import { figureRowsOf, findReportRow, rowHashOf } from './report-rows'
 

@@ -2,12 +2,21 @@ import type { Editor } from '@tiptap/core'
 
 export interface TextTool {
   key: string
-  /** what a screen reader and the tooltip say */
+  /** what the tooltip says, and a screen reader after the button's text */
   label: string
   /** what the button shows */
   text: string
+  /** what a screen reader says instead of `label` */
+  spoken?: string
+  /** `tool-<key>` unless given */
+  testId?: string
   active?: () => boolean
   run: () => void
+}
+
+export interface ToolGroup {
+  name: string
+  tools: TextTool[]
 }
 
 /** The symbols the trade writes, one click each. */
@@ -21,8 +30,26 @@ export const SYMBOLS = [
   { text: '≥', name: 'greater than or equal' },
 ] as const
 
-/** The toolbar's formatting buttons, grouped; table tools appear while in a table. */
-export function textToolGroups(editor: Editor) {
+/** The symbols as one group of buttons, each inserting its text where the cursor is. */
+function symbolGroup(editor: Editor): ToolGroup {
+  return {
+    name: 'Symbols',
+    tools: SYMBOLS.map((symbol) => ({
+      key: symbol.name,
+      label: symbol.name,
+      text: symbol.text,
+      spoken: `insert ${symbol.name}`,
+      testId: `symbol-${symbol.name}`,
+      run: () => editor.chain().focus().insertContent(symbol.text).run(),
+    })),
+  }
+}
+
+/**
+ * The toolbar's formatting and symbol buttons, grouped; table tools appear while in a table,
+ * before the symbols.
+ */
+export function textToolGroups(editor: Editor): ToolGroup[] {
   const chain = () => editor.chain().focus()
   const heading = (level: 2 | 3): TextTool => ({
     key: `heading-${level}`,
@@ -38,7 +65,7 @@ export function textToolGroups(editor: Editor) {
     active: () => editor.isActive(key),
     run,
   })
-  const groups: { name: string; tools: TextTool[] }[] = [
+  const groups: ToolGroup[] = [
     {
       name: 'Paragraph style',
       tools: [
@@ -112,5 +139,6 @@ export function textToolGroups(editor: Editor) {
         },
       ],
     })
+  groups.push(symbolGroup(editor))
   return groups
 }

@@ -1,24 +1,8 @@
-import { createRequire } from 'node:module'
-import { pathToFileURL } from 'node:url'
-import { Worker } from 'node:worker_threads'
+import { startWorker } from '../../../start-worker'
 import type { ReportPdfInput } from './input'
 import type { PdfAnswer } from './worker'
 
-// Compiled, the worker sits beside the server bundle as report-pdf-worker.js; from source (tsx,
-// vitest) it is the TypeScript file, run through tsx's loader registered inside the worker.
-const COMPILED = !import.meta.url.endsWith('.ts')
-
-function startWorker(): Worker {
-  if (COMPILED) return new Worker(new URL('./report-pdf-worker.js', import.meta.url))
-  const workerFile = new URL('./worker.ts', import.meta.url).href
-  const tsxApi = pathToFileURL(
-    createRequire(import.meta.url)
-      .resolve('tsx/esm/api')
-      .replace(/\.cjs$/, '.mjs'),
-  ).href
-  const boot = `import(${JSON.stringify(tsxApi)}).then(({ register }) => { register(); return import(${JSON.stringify(workerFile)}) })`
-  return new Worker(boot, { eval: true })
-}
+const PDF_WORKER = { source: './worker.ts', compiled: 'report-pdf-worker.js' }
 
 let running: Promise<unknown> = Promise.resolve()
 
@@ -30,7 +14,7 @@ export function renderReportPdfOffThread(input: ReportPdfInput): Promise<Buffer>
   const job = running.then(
     () =>
       new Promise<Buffer>((resolve, reject) => {
-        const worker = startWorker()
+        const worker = startWorker(import.meta.url, PDF_WORKER)
         worker.once('message', (answer: PdfAnswer) => {
           void worker.terminate()
           if ('pdf' in answer)

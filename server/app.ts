@@ -117,7 +117,7 @@ function apiRouter(deps: AppDeps & { storage: FileStorage }, log: (error: unknow
   api.use(passport.session())
   api.use(csrfProtection)
   api.use('/health', healthRoutes(db))
-  api.use('/auth', authRoutes({ db, people, secondFactors, config }))
+  api.use('/auth', authRoutes({ db, passport, people, secondFactors, config }))
   const signedIn = [requireSignedIn, requirePasswordSet, requireSecondFactorSet]
   api.use('/people', ...signedIn, peopleRoutes(people, secondFactors))
   api.use('/security-events', ...signedIn, securityEventRoutes(db))

@@ -4,6 +4,7 @@ import type { Person } from '../../shared/schemas/people'
 import type { Config } from '../config'
 import { AppError, TooManyRequests, Unauthorized } from '../errors'
 import { issueCsrfToken } from '../auth/csrf'
+import { checkPassword, type AppPassport } from '../auth/passport'
 import { sessionCookieName } from '../auth/session'
 import { csrfTokenLimits, passwordChangeLimits } from '../auth/request-limits'
 import { logIn, PENDING_SIGN_IN_MS, regenerateSession, saveSession } from '../auth/session-steps'
@@ -26,6 +27,7 @@ const EXPIRED = 'Your one-time password has expired. Ask an administrator to iss
 
 interface AuthDeps {
   db: Db
+  passport: AppPassport
   people: PeopleService
   secondFactors: SecondFactorService
   config: Config
@@ -48,7 +50,7 @@ async function completeSignIn(deps: AuthDeps, req: Request, res: Response, perso
 function signInRoute(deps: AuthDeps, throttle: SignInThrottle) {
   const trail = trailOf(deps.db)
   return async (req: Request, res: Response) => {
-    const { email, password } = res.locals.body as LoginRequest
+    const { email } = res.locals.body as LoginRequest
     const address = req.ip ?? ''
     const verdict = throttle.check(email, address)
     if (verdict.refused) {
@@ -56,7 +58,7 @@ function signInRoute(deps: AuthDeps, throttle: SignInThrottle) {
       throw new TooManyRequests()
     }
     await pause(verdict.delayMs)
-    const check = await deps.people.verifyCredentials(email, password)
+    const check = await checkPassword(deps.passport, req, res)
     if (!check || 'expired' in check) {
       if (!check) throttle.failed(email, address)
       const reason = check ? 'one_time_password_expired' : 'wrong_credentials'

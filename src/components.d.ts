@@ -119,5 +119,6 @@ declare module 'vue' {
     ToggleButton: typeof import('primevue/togglebutton')['default']
     ToggleSwitch: typeof import('primevue/toggleswitch')['default']
     TurnaroundFields: typeof import('./components/case/record/TurnaroundFields.vue')['default']
+    UnitChoice: typeof import('./components/tensile/UnitChoice.vue')['default']
   }
 }

@@ -54,7 +54,10 @@ export function checkPassword(
   passport: AppPassport,
   req: Request,
   res: Response,
+  credentials: { email: string; password: string },
 ): Promise<CredentialCheck> {
+  // the strategy reads the body: give it what the schema made of it (trimmed, lower-cased)
+  req.body = credentials
   return new Promise((resolve, reject) => {
     // what the strategy's verify answered; passport's own note (no e-mail) carries no check
     const answer = (error: unknown, _user: unknown, info?: { check?: CredentialCheck }) =>

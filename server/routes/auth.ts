@@ -50,7 +50,8 @@ async function completeSignIn(deps: AuthDeps, req: Request, res: Response, perso
 function signInRoute(deps: AuthDeps, throttle: SignInThrottle) {
   const trail = trailOf(deps.db)
   return async (req: Request, res: Response) => {
-    const { email } = res.locals.body as LoginRequest
+    const credentials = res.locals.body as LoginRequest
+    const { email } = credentials
     const address = req.ip ?? ''
     const verdict = throttle.check(email, address)
     if (verdict.refused) {
@@ -58,7 +59,7 @@ function signInRoute(deps: AuthDeps, throttle: SignInThrottle) {
       throw new TooManyRequests()
     }
     await pause(verdict.delayMs)
-    const check = await checkPassword(deps.passport, req, res)
+    const check = await checkPassword(deps.passport, req, res, credentials)
     if (!check || 'expired' in check) {
       if (!check) throttle.failed(email, address)
       const reason = check ? 'one_time_password_expired' : 'wrong_credentials'

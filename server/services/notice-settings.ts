@@ -1,5 +1,5 @@
 import type { Knex } from 'knex'
-import type { Actor } from '../../shared/access/policy'
+import { isStaff, type Actor } from '../../shared/access/policy'
 import {
   isEssentialNotice,
   NOTICE_AUDIENCE,
@@ -13,7 +13,7 @@ import type { ServiceContext } from './context'
 /** The kinds a person can receive: clients' notices for clients, the case's work for staff. */
 function kindsFor(actor: Actor) {
   const client = actor.roles.includes('client')
-  const staff = actor.roles.some((role) => role !== 'client')
+  const staff = isStaff(actor)
   return PERSONAL_NOTICE_KINDS.filter((kind) =>
     NOTICE_AUDIENCE[kind] === 'client' ? client : staff,
   )

@@ -67,8 +67,8 @@ function applyFilters(cases: Knex.QueryBuilder, query: CaseListQuery, today: str
   if (query.q) applySearch(cases, planSearch(query.q))
 }
 
-/** The filtered cases in the person's scope, before paging (shared with the dashboard). */
-export function casesInScope(ctx: ServiceContext, query: CaseListQuery, today: string) {
+/** The filtered cases in the person's scope, before paging. */
+function casesInScope(ctx: ServiceContext, query: CaseListQuery, today: string) {
   const cases = ctx.db('cases')
   const scope = organisationScope(ctx.actor)
   if (scope !== undefined) cases.where('cases.organisationId', scope)

@@ -38,6 +38,7 @@ declare module 'vue' {
     CommentThreads: typeof import('./components/review/CommentThreads.vue')['default']
     ConfirmDialog: typeof import('primevue/confirmdialog')['default']
     ConflictPanel: typeof import('./components/findings/ConflictPanel.vue')['default']
+    CurveViewChoice: typeof import('./components/tensile/CurveViewChoice.vue')['default']
     CustodyEventDialog: typeof import('./components/evidence/CustodyEventDialog.vue')['default']
     CustodyHistory: typeof import('./components/evidence/CustodyHistory.vue')['default']
     DashboardCharts: typeof import('./components/home/DashboardCharts.vue')['default']
